@@ -1,0 +1,59 @@
+#!/usr/bin/env node
+// Runs a TypeScript entry point with no separate build step: esbuild bundles it
+// into node_modules/.cache/cutline (rebuilt only when a source file is newer),
+// then Node runs the bundle. Usage: node bin/run-ts.cjs path/to/entry.ts [args…]
+'use strict';
+const fs = require('fs');
+const path = require('path');
+
+const root = path.resolve(__dirname, '..');
+
+function newestMtime(dir) {
+  let newest = 0;
+  for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
+    const p = path.join(dir, entry.name);
+    if (entry.isDirectory()) newest = Math.max(newest, newestMtime(p));
+    else if (entry.name.endsWith('.ts')) newest = Math.max(newest, fs.statSync(p).mtimeMs);
+  }
+  return newest;
+}
+
+function bundled(entry) {
+  const abs = path.resolve(root, entry);
+  const name = path.relative(root, abs).replace(/[\\/]/g, '_').replace(/\.ts$/, '') + '.cjs';
+  const out = path.join(root, 'node_modules', '.cache', 'cutline', name);
+  let fresh = false;
+  try {
+    const built = fs.statSync(out).mtimeMs;
+    const dirs = ['src', path.relative(root, path.dirname(abs))].map((d) => path.join(root, d));
+    fresh = dirs.every((d) => !fs.existsSync(d) || newestMtime(d) < built);
+  } catch (_) {
+    fresh = false;
+  }
+  if (!fresh) {
+    require('esbuild').buildSync({
+      entryPoints: [abs],
+      outfile: out,
+      bundle: true,
+      platform: 'node',
+      target: 'node20',
+      format: 'cjs',
+      packages: 'external',
+      sourcemap: 'inline',
+      logLevel: 'error',
+    });
+  }
+  return out;
+}
+
+module.exports = { bundled };
+
+if (require.main === module) {
+  const [entry, ...rest] = process.argv.slice(2);
+  if (!entry) {
+    process.stderr.write('usage: node bin/run-ts.cjs ENTRY.ts [args…]\n');
+    process.exit(1);
+  }
+  process.argv = [process.argv[0], entry, ...rest];
+  require(bundled(entry));
+}

@@ -1,0 +1,83 @@
+/**
+ * Per-unit residual terms e_i of one side of the window, such that the
+ * variance of a smoother Σ w_i V_i is Σ w_i² e_i² (METHODS.md §2):
+ *
+ * - `hc0`, `cluster`: e_i = V_i − fitted value of the side's fit (degree 1 for
+ *   the estimate, degree 2 for the bias-corrected one).
+ * - `hc1`: hc0 times sqrt(n_s/(n_s − q)), q the fit's parameter count (2 for
+ *   the line, as METHODS.md states; 3 for the quadratic, Cutline's choice).
+ * - `nn`: sqrt(J/(J+1))·(V_i − mean of V over the J = 3 nearest neighbours by
+ *   score on the same side), Calonico, Cattaneo & Titiunik (2014, §3 and
+ *   supplement). Units are sorted by score; a neighbour tie in distance goes
+ *   to the unit on the left (lower score), Cutline's deterministic choice.
+ */
+import { SideFit } from './boundaryWindow';
+
+export type VarianceName = 'hc0' | 'hc1' | 'nn' | 'cluster';
+export const VARIANCE_NAMES: readonly VarianceName[] = ['hc0', 'hc1', 'nn', 'cluster'];
+
+export const NN_NEIGHBOURS = 3;
+
+/** Residuals of the side's least-squares fit of V, degree 1 or 2. */
+export function fitResiduals(side: SideFit, values: ArrayLike<number>, degree: 1 | 2): Float64Array {
+  const coefs = degree === 1 ? side.coef1 : side.coef2;
+  if (!coefs) throw new Error('quadratic weights were not computed for this window');
+  const { index, x } = side;
+  const n = index.length;
+  const b = coefs.map((w) => {
+    let s = 0;
+    for (let t = 0; t < n; t++) s += w[t] * values[index[t]];
+    return s;
+  });
+  const e = new Float64Array(n);
+  for (let t = 0; t < n; t++) {
+    let fitted = 0;
+    let pw = 1;
+    for (let j = 0; j < b.length; j++) {
+      fitted += b[j] * pw;
+      pw *= x[t];
+    }
+    e[t] = values[index[t]] - fitted;
+  }
+  return e;
+}
+
+/** Nearest-neighbour residuals (J = 3) of V on one side. */
+export function nnResiduals(side: SideFit, values: ArrayLike<number>, J = NN_NEIGHBOURS): Float64Array {
+  const { index, x } = side;
+  const n = index.length;
+  const e = new Float64Array(n);
+  const jj = Math.min(J, n - 1);
+  const scale = Math.sqrt(jj / (jj + 1));
+  for (let t = 0; t < n; t++) {
+    let l = t - 1;
+    let r = t + 1;
+    let sum = 0;
+    for (let c = 0; c < jj; c++) {
+      const dl = l >= 0 ? x[t] - x[l] : Infinity;
+      const dr = r < n ? x[r] - x[t] : Infinity;
+      if (dl <= dr) sum += values[index[l--]];
+      else sum += values[index[r++]];
+    }
+    e[t] = scale * (values[index[t]] - sum / jj);
+  }
+  return e;
+}
+
+/** The e_i of the chosen variance for V on one side. */
+export function sideResiduals(
+  side: SideFit,
+  values: ArrayLike<number>,
+  variance: VarianceName,
+  degree: 1 | 2,
+): Float64Array {
+  if (variance === 'nn') return nnResiduals(side, values);
+  const e = fitResiduals(side, values, degree);
+  if (variance === 'hc1') {
+    const n = e.length;
+    const q = degree + 1;
+    const f = n > q ? Math.sqrt(n / (n - q)) : 1;
+    for (let t = 0; t < n; t++) e[t] *= f;
+  }
+  return e;
+}
