@@ -1,0 +1,68 @@
+/**
+ * Distinct score values near the cutoff, and the data-specific caveat the
+ * density tests (METHODS.md §6) and the binned plots attach when the score is
+ * discrete or heaped. McCrary (2008, §2 and §5) and Cattaneo, Jansson & Ma
+ * (2020, §2) both assume a continuously distributed score; with a score that
+ * takes few values (mass points) the histogram heights or the empirical
+ * distribution function jump at the support points, the density estimates
+ * are not consistent and the p-value can mislead. Their advice, as Cutline
+ * states it: do not read the test as evidence either way; look at the counts
+ * at the support points next to the cutoff.
+ *
+ * Cutline's rule (its own choice): a side is "mostly mass points" when its
+ * window holds fewer than 10 distinct scores, or when on average at least two
+ * units share each distinct score (distinct ≤ units/2).
+ */
+
+export interface DistinctScores {
+  below: number;
+  above: number;
+  unitsBelow: number;
+  unitsAbove: number;
+}
+
+export const FEW_DISTINCT = 10;
+
+/** Number of distinct values in an ascending array. */
+export function countDistinctSorted(sorted: ArrayLike<number>): number {
+  let d = 0;
+  for (let i = 0; i < sorted.length; i++) if (i === 0 || sorted[i] !== sorted[i - 1]) d++;
+  return d;
+}
+
+/** Distinct scores in (c − h, c) and [c, c + h); h = Infinity counts whole sides. */
+export function windowDistinctScores(
+  score: ArrayLike<number>,
+  cutoff: number,
+  bandwidth: number,
+  rows?: Int32Array,
+): DistinctScores {
+  const lo: number[] = [];
+  const hi: number[] = [];
+  const total = rows ? rows.length : score.length;
+  for (let t = 0; t < total; t++) {
+    const x = score[rows ? rows[t] : t] - cutoff;
+    if (x >= 0 ? x < bandwidth : -x < bandwidth) (x >= 0 ? hi : lo).push(x);
+  }
+  const a = Float64Array.from(hi).sort();
+  const b = Float64Array.from(lo).sort();
+  return { below: countDistinctSorted(b), above: countDistinctSorted(a), unitsBelow: b.length, unitsAbove: a.length };
+}
+
+/** True when a side's window is mostly mass points (see the rule above). */
+export function mostlyMassPoints(distinct: number, units: number): boolean {
+  return units > 0 && (distinct < FEW_DISTINCT || distinct <= units / 2);
+}
+
+/** The caveat for a density test or plot, or null when the score looks continuous. */
+export function distinctScoreWarning(d: DistinctScores, what = 'the density tests'): string | null {
+  const bad: string[] = [];
+  if (mostlyMassPoints(d.below, d.unitsBelow)) bad.push(`${d.below} distinct values among ${d.unitsBelow} units below the cutoff`);
+  if (mostlyMassPoints(d.above, d.unitsAbove)) bad.push(`${d.above} distinct values among ${d.unitsAbove} units above the cutoff`);
+  if (bad.length === 0) return null;
+  return (
+    `the score takes few distinct values near the cutoff (${bad.join('; ')}): ${what} assume a continuously ` +
+    `distributed score (McCrary 2008; Cattaneo, Jansson & Ma 2020), so with a discrete or heaped score the ` +
+    `result is not reliable either way — compare the counts at the score values next to the cutoff instead`
+  );
+}
