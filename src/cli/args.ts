@@ -1,0 +1,111 @@
+/**
+ * The arguments of `cutline check` (DESIGN.md "The command line"), parsed
+ * without a library so that every message is Cutline's own and names the
+ * option. Values come as `--name value` or `--name=value`.
+ */
+import { CutlineError } from '../engine/errors';
+
+export interface OptionSpec {
+  /** Takes a value (false: a flag). */
+  value: boolean;
+  /** May be given more than once. */
+  repeat?: boolean;
+}
+
+export const CHECK_OPTIONS: Record<string, OptionSpec> = {
+  score: { value: true },
+  treated: { value: true },
+  outcome: { value: true, repeat: true },
+  cutoff: { value: true },
+  sheet: { value: true },
+  bandwidth: { value: true },
+  'bandwidth-rule': { value: true },
+  kernel: { value: true },
+  variance: { value: true },
+  draws: { value: true },
+  seed: { value: true },
+  grid: { value: true },
+  trim: { value: true },
+  multiplier: { value: true },
+  sensitivity: { value: true },
+  within: { value: true },
+  'density-bin': { value: true },
+  'density-bandwidth': { value: true },
+  covariate: { value: true, repeat: true },
+  cluster: { value: true },
+  donut: { value: true },
+  bins: { value: false },
+  out: { value: true },
+  html: { value: true },
+  json: { value: false },
+};
+
+export interface ParsedArgs {
+  command: string;
+  file?: string;
+  values: Map<string, string[]>;
+  flags: Set<string>;
+}
+
+export function parseArgs(argv: string[], specs: Record<string, OptionSpec> = CHECK_OPTIONS): ParsedArgs {
+  const [command, ...rest] = argv;
+  const out: ParsedArgs = { command: command ?? '', values: new Map(), flags: new Set() };
+  for (let i = 0; i < rest.length; i++) {
+    const a = rest[i];
+    if (!a.startsWith('--')) {
+      if (out.file !== undefined) throw new CutlineError(`unexpected argument ${JSON.stringify(a)}: give one input FILE`);
+      out.file = a;
+      continue;
+    }
+    const eq = a.indexOf('=');
+    const name = a.slice(2, eq < 0 ? undefined : eq);
+    const spec = specs[name];
+    if (!spec) throw new CutlineError(`unknown option --${name} (see \`cutline help\`)`);
+    if (!spec.value) {
+      if (eq >= 0) throw new CutlineError(`--${name} takes no value`);
+      out.flags.add(name);
+      continue;
+    }
+    let v: string | undefined;
+    if (eq >= 0) v = a.slice(eq + 1);
+    else {
+      v = rest[i + 1];
+      if (v === undefined || (v.startsWith('--') && !/^--?\d/.test(v))) throw new CutlineError(`--${name} needs a value`);
+      i++;
+    }
+    const list = out.values.get(name) ?? [];
+    if (list.length > 0 && !spec.repeat) throw new CutlineError(`--${name} is given twice`);
+    list.push(v);
+    out.values.set(name, list);
+  }
+  return out;
+}
+
+export function one(args: ParsedArgs, name: string): string | undefined {
+  return args.values.get(name)?.[0];
+}
+
+export function required(args: ParsedArgs, name: string, what: string): string {
+  const v = one(args, name);
+  if (v === undefined || v.trim() === '') throw new CutlineError(`--${name} is required: ${what}`);
+  return v;
+}
+
+export function numberOption(args: ParsedArgs, name: string, check?: (v: number) => string | null): number | undefined {
+  const s = one(args, name);
+  if (s === undefined) return undefined;
+  const v = Number(s.trim());
+  if (s.trim() === '' || !Number.isFinite(v)) throw new CutlineError(`--${name} must be a number, got ${JSON.stringify(s)}`);
+  const problem = check?.(v);
+  if (problem) throw new CutlineError(`--${name} ${problem}, got ${s}`);
+  return v;
+}
+
+export function choiceOption<T extends string>(args: ParsedArgs, name: string, choices: readonly T[]): T | undefined {
+  const s = one(args, name);
+  if (s === undefined) return undefined;
+  if (!(choices as readonly string[]).includes(s)) {
+    throw new CutlineError(`--${name} must be one of ${choices.join(', ')}; got ${JSON.stringify(s)}`);
+  }
+  return s as T;
+}

@@ -1,0 +1,77 @@
+/**
+ * `cutline check FILE --score COL --treated COL --outcome COL … --cutoff NUM`
+ * (DESIGN.md). Exit status 0 on success, 2 for bad input (one line on
+ * standard error saying what and where), 1 for anything else.
+ */
+import { BANDWIDTH_RULES } from '../engine/bandwidth';
+import { CheckInput, runCheck } from '../engine/check';
+import { CutlineError } from '../engine/errors';
+import { KERNEL_NAMES } from '../engine/kernels';
+import { VARIANCE_NAMES } from '../engine/residuals';
+import { labelColumn, numericColumn } from '../input/columns';
+import { choiceOption, numberOption, one, parseArgs, ParsedArgs, required } from './args';
+import { toJson } from './json';
+import { readable } from './readable';
+import { readTable } from './readTable';
+
+const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
+  [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
+  [--variance nn|hc0|hc1|cluster] [--cluster COL] [--covariate COL …] [--json]
+`;
+
+async function check(args: ParsedArgs): Promise<void> {
+  const file = args.file;
+  if (!file) throw new CutlineError('check needs an input FILE (CSV or XLSX)');
+  for (const unsupported of ['out', 'html']) {
+    if (args.values.has(unsupported)) throw new CutlineError(`--${unsupported}: report files are not available in this version of Cutline`);
+  }
+  const scoreName = required(args, 'score', 'the column of the running variable');
+  const treatedName = required(args, 'treated', 'the column of treatment received (0/1)');
+  const outcomeNames = args.values.get('outcome') ?? [];
+  if (outcomeNames.length === 0) throw new CutlineError('--outcome is required: at least one outcome column');
+  const cutoff = numberOption(args, 'cutoff');
+  if (cutoff === undefined) throw new CutlineError('--cutoff is required: the score at which eligibility changes');
+  const bandwidth = numberOption(args, 'bandwidth', (v) => (v > 0 ? null : 'must be positive'));
+  const rule = choiceOption(args, 'bandwidth-rule', BANDWIDTH_RULES);
+  if (bandwidth !== undefined && rule !== undefined) throw new CutlineError('give --bandwidth or --bandwidth-rule, not both');
+  const kernel = choiceOption(args, 'kernel', KERNEL_NAMES);
+  const clusterName = one(args, 'cluster');
+  const variance = choiceOption(args, 'variance', VARIANCE_NAMES) ?? (clusterName ? 'cluster' : undefined);
+  if (variance === 'cluster' && !clusterName) throw new CutlineError('--variance cluster needs --cluster COL');
+
+  const table = await readTable(file, one(args, 'sheet'));
+  const input: CheckInput = {
+    score: numericColumn(table, scoreName, 'score'),
+    treated: numericColumn(table, treatedName, 'treated'),
+    outcomes: outcomeNames.map((o) => numericColumn(table, o, 'outcome')),
+    covariates: (args.values.get('covariate') ?? []).map((c) => numericColumn(table, c, 'covariate')),
+    cluster: clusterName ? labelColumn(table, clusterName, 'cluster') : undefined,
+  };
+  const result = runCheck(input, { cutoff, bandwidth, rule, kernel, variance });
+  if (args.flags.has('json')) process.stdout.write(JSON.stringify(toJson(result), null, 2) + '\n');
+  else process.stdout.write(readable(file, result));
+}
+
+async function main(argv: string[]): Promise<number> {
+  try {
+    if (argv.length === 0 || argv[0] === 'help' || argv[0] === '--help') {
+      process.stdout.write(USAGE);
+      return argv.length === 0 ? 2 : 0;
+    }
+    const args = parseArgs(argv);
+    if (args.command !== 'check') throw new CutlineError(`unknown command ${JSON.stringify(args.command)}; the command is \`cutline check\``);
+    await check(args);
+    return 0;
+  } catch (e) {
+    if (e instanceof CutlineError) {
+      process.stderr.write(`cutline: ${e.message.replace(/\s*\n\s*/g, ' ')}\n`);
+      return 2;
+    }
+    process.stderr.write(`cutline: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
+    return 1;
+  }
+}
+
+main(process.argv.slice(2)).then((code) => {
+  process.exitCode = code;
+});

@@ -1,0 +1,31 @@
+/**
+ * Reads the input FILE (CSV or XLSX) into a Table. The file is only read,
+ * never written. XLSX is recognised by its zip signature or its extension.
+ */
+import * as fs from 'fs';
+import * as path from 'path';
+import { CutlineError } from '../engine/errors';
+import { parseCsv } from '../input/csv';
+import { Table } from '../input/table';
+import { parseXlsx } from '../input/xlsx';
+
+export async function readTable(file: string, sheet?: string): Promise<Table> {
+  let bytes: Buffer;
+  try {
+    const st = fs.statSync(file);
+    if (st.isDirectory()) throw new CutlineError(`${file} is a folder, not a CSV or XLSX file`);
+    bytes = fs.readFileSync(file);
+  } catch (e) {
+    if (e instanceof CutlineError) throw e;
+    const code = (e as NodeJS.ErrnoException).code;
+    if (code === 'ENOENT') throw new CutlineError(`${file}: no such file`);
+    if (code === 'EACCES') throw new CutlineError(`${file}: permission denied`);
+    throw new CutlineError(`${file}: cannot be read (${code ?? 'unknown error'})`);
+  }
+  const ext = path.extname(file).toLowerCase();
+  const zip = bytes.length >= 4 && bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 3 && bytes[3] === 4;
+  if (zip || ext === '.xlsx' || ext === '.xlsm') return parseXlsx(bytes, sheet, file);
+  if (sheet !== undefined) throw new CutlineError(`--sheet applies to XLSX workbooks; ${file} is read as CSV`);
+  if (bytes.includes(0)) throw new CutlineError(`${file} is neither a CSV text nor an XLSX workbook`);
+  return parseCsv(bytes.toString('utf8'), file);
+}

@@ -1,0 +1,67 @@
+/**
+ * The readable (default) output of `cutline check`: Cutline's own layout, a
+ * block per question an evaluator asks, with the cautions of METHODS.md.
+ */
+import { CheckResult, EstimateSummary } from '../engine/check';
+import { interval, num, padLeft, padRight, pval, wrap } from './format';
+
+const COLS = [28, 12, 11, 26, 26, 9];
+
+function row(label: string, e: EstimateSummary): string {
+  return [
+    padRight(label, COLS[0]),
+    padLeft(num(e.estimate), COLS[1]),
+    padLeft(num(e.se), COLS[2]),
+    padLeft(interval(e.ci), COLS[3]),
+    padLeft(interval(e.ci_robust), COLS[4]),
+    padLeft(pval(e.pvalue), COLS[5]),
+  ].join('');
+}
+
+function header(): string {
+  return [
+    padRight('', COLS[0]),
+    padLeft('estimate', COLS[1]),
+    padLeft('std. err.', COLS[2]),
+    padLeft('95% interval', COLS[3]),
+    padLeft('robust 95% interval', COLS[4]),
+    padLeft('p', COLS[5]),
+  ].join('');
+}
+
+export const GENERAL_CAUTIONS = [
+  'A test that does not reject is not proof that the design is valid: it only finds no contradiction in these data.',
+  'Cutline informs, and does not replace, the judgement of a qualified evaluator.',
+];
+
+export function readable(file: string, r: CheckResult): string {
+  const out: string[] = [];
+  const side = r.eligible === 'above' ? `score ≥ ${r.cutoff}` : `score < ${r.cutoff}`;
+  out.push(`Cutline check of ${file}`);
+  out.push(`Cutoff ${r.cutoff}; eligible units: ${side}`);
+  out.push(`Rows: ${r.rows.read} read, ${r.rows.used} used, ${r.rows.dropped} dropped for missing values`);
+  out.push(
+    `Bandwidth ${num(r.bandwidth.value)} (${r.bandwidth.rule === 'typed' ? 'typed' : `rule ${r.bandwidth.rule}`}, ` +
+      `${r.bandwidth.kernel} kernel, ${r.bandwidth.variance} variance): ${r.bandwidth.window.below} units below, ${r.bandwidth.window.above} above`,
+  );
+  out.push('');
+  out.push(header());
+  out.push(row('Take-up jump (first stage)', r.takeup));
+  for (const o of r.outcomes) {
+    out.push(`${o.name}${o.rows.dropped > r.rows.dropped ? `  (${o.rows.used} rows used)` : ''}`);
+    out.push(row('  jump at the cutoff', o.jump));
+    out.push(row('  effect for compliers', o.effect));
+  }
+  out.push('');
+  out.push('p: two-sided, robust bias-corrected. Jumps are eligible side minus the other side.');
+  const warnings = [...r.warnings, ...r.outcomes.flatMap((o) => o.warnings.map((w) => `${o.name}: ${w}`))];
+  if (warnings.length > 0) {
+    out.push('');
+    out.push('Warnings');
+    for (const w of warnings) out.push(`  - ${wrap(w, 96, '    ')}`);
+  }
+  out.push('');
+  out.push('Cautions');
+  for (const c of GENERAL_CAUTIONS) out.push(`  - ${wrap(c, 96, '    ')}`);
+  return out.join('\n') + '\n';
+}

@@ -1,0 +1,87 @@
+/**
+ * Columns of a Table checked and converted once, for every face (METHODS.md
+ * §1). Each error names the column (and the option that asked for it) and the
+ * first offending row; missing values become a mask, never a silent NaN.
+ */
+import { CutlineError } from '../engine/errors';
+import { cellLabel, cellNumber, showCell } from './cells';
+import { Table } from './table';
+
+export interface NumericColumn {
+  name: string;
+  values: Float64Array;
+  /** 1 where the cell is missing. */
+  missing: Uint8Array;
+}
+
+export interface LabelColumn {
+  name: string;
+  /** Integer code of each label, in order of first appearance; −1 missing. */
+  codes: Int32Array;
+  labels: string[];
+  missing: Uint8Array;
+}
+
+export type ColumnRole = 'score' | 'treated' | 'outcome' | 'covariate' | 'cluster' | 'within';
+
+/** Index of a named column; the message lists what the table has. */
+export function findColumn(table: Table, name: string, role: string): number {
+  const i = table.header.indexOf(name);
+  if (i >= 0) return i;
+  const lower = table.header.findIndex((h) => h.toLowerCase() === name.toLowerCase());
+  if (lower >= 0) return lower;
+  const shown = table.header.slice(0, 12).map((h) => JSON.stringify(h)).join(', ');
+  throw new CutlineError(`${role}: no column named ${JSON.stringify(name)}; the columns are ${shown}${table.header.length > 12 ? ', …' : ''}`);
+}
+
+export function numericColumn(table: Table, name: string, role: ColumnRole): NumericColumn {
+  const c = findColumn(table, name, `--${role}`);
+  const n = table.rowCount;
+  const values = new Float64Array(n);
+  const missing = new Uint8Array(n);
+  const binary = role === 'treated';
+  for (let r = 0; r < n; r++) {
+    const cell = table.get(r, c);
+    const v = cellNumber(cell);
+    if (v === null) {
+      missing[r] = 1;
+    } else if (v === undefined) {
+      const what = binary ? 'treated must be 0, 1, TRUE or FALSE' : 'not a number';
+      throw new CutlineError(`column ${JSON.stringify(table.header[c])} (${role}), row ${r + table.firstRow}: ${what}, found ${showCell(cell)}`);
+    } else if (binary && v !== 0 && v !== 1) {
+      throw new CutlineError(
+        `column ${JSON.stringify(table.header[c])} (treated), row ${r + table.firstRow}: treated must be 0, 1, TRUE or FALSE, found ${showCell(cell)}`,
+      );
+    } else {
+      values[r] = v;
+    }
+  }
+  return { name: table.header[c], values, missing };
+}
+
+export function labelColumn(table: Table, name: string, role: ColumnRole): LabelColumn {
+  const c = findColumn(table, name, `--${role}`);
+  const n = table.rowCount;
+  const codes = new Int32Array(n);
+  const missing = new Uint8Array(n);
+  const seen = new Map<string, number>();
+  const labels: string[] = [];
+  for (let r = 0; r < n; r++) {
+    const s = cellLabel(table.get(r, c));
+    if (s === null) {
+      missing[r] = 1;
+      codes[r] = -1;
+      continue;
+    }
+    let code = seen.get(s);
+    if (code === undefined) {
+      code = labels.length;
+      seen.set(s, code);
+      labels.push(s);
+    }
+    codes[r] = code;
+  }
+  return { name: table.header[c], codes, labels, missing };
+}
+
+export { completeRows, compact } from '../engine/listwise';

@@ -1,0 +1,28 @@
+/**
+ * A table of cells as the faces hand it over: a header of column names and
+ * rows of cells (numbers, strings, booleans, empty cells). The same Table
+ * comes from a CSV text, an exceljs worksheet or a worksheet range, so that
+ * validation (columns.ts) and its messages are the same in every face.
+ */
+export type Cell = string | number | boolean | null | undefined;
+
+export interface Table {
+  header: string[];
+  rowCount: number;
+  /** Row number a user sees for data row 0 (2 when the header is row 1). */
+  firstRow: number;
+  /** The cell at data row r (0-based) and column c. */
+  get(r: number, c: number): Cell;
+}
+
+/** A table over arrays of arrays; the first row is the header unless `header` is given. */
+export function tableFromRows(rows: Cell[][], options: { header?: string[]; firstRow?: number } = {}): Table {
+  const header = options.header ?? (rows[0] ?? []).map((h) => (h === null || h === undefined ? '' : String(h).trim()));
+  const body = options.header ? rows : rows.slice(1);
+  return {
+    header,
+    rowCount: body.length,
+    firstRow: options.firstRow ?? (options.header ? 1 : 2),
+    get: (r, c) => body[r][c],
+  };
+}
