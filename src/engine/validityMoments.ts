@@ -189,3 +189,27 @@ export function takeupOf(m: MomentSet): { estimate: number; se: number } {
   const l = m.cls.bins - 1;
   return { estimate: -m.estimate[l], se: m.se[l] };
 }
+
+/** The moment set restricted to the moments `keep` (in that order); for tests of single moments. */
+export function selectMoments(m: MomentSet, keep: number[]): MomentSet {
+  const pick = <T extends Float64Array | Int32Array | Uint8Array>(a: T): T => {
+    const out = new (a.constructor as { new (n: number): T })(keep.length);
+    keep.forEach((l, j) => (out[j] = a[l]));
+    return out;
+  };
+  return {
+    ...m,
+    count: keep.length,
+    arm: pick(m.arm),
+    first: pick(m.first),
+    last: pick(m.last),
+    estimate: pick(m.estimate),
+    se: pick(m.se),
+    den: pick(m.den),
+    t: pick(m.t),
+    aPlus: pick(m.aPlus),
+    bPlus: pick(m.bPlus),
+    aMinus: pick(m.aMinus),
+    bMinus: pick(m.bMinus),
+  };
+}
