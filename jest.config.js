@@ -4,4 +4,6 @@ module.exports = {
   roots: ['<rootDir>/src', '<rootDir>/test'],
   testMatch: ['**/*.test.ts'],
   transform: { '^.+\\.ts$': ['ts-jest', { isolatedModules: true, diagnostics: false }] },
+  reporters: ['default', '<rootDir>/test/summaryReporter.js'],
+  testTimeout: 60000,
 };

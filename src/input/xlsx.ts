@@ -21,7 +21,7 @@ function plain(v: ExcelJS.CellValue): Cell {
   return String(v);
 }
 
-export async function parseXlsx(bytes: Buffer | ArrayBuffer, sheet?: string, source = 'the workbook'): Promise<Table> {
+export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string, source = 'the workbook'): Promise<Table> {
   const wb = new ExcelJS.Workbook();
   try {
     await wb.xlsx.load(bytes as ArrayBuffer);

@@ -1,0 +1,14 @@
+// office-addin-lint's rules (its recommended Office add-in set) on TypeScript sources.
+// Formatting is left to authors (prettier's rule is not enforced).
+import officeAddins from "eslint-plugin-office-addins";
+import tsParser from "@typescript-eslint/parser";
+
+export default [
+  ...officeAddins.configs.recommended,
+  {
+    plugins: { "office-addins": officeAddins },
+    languageOptions: { parser: tsParser },
+    // no-undef is off for TypeScript: the compiler checks names (typescript-eslint advice).
+    rules: { "prettier/prettier": "off", "no-undef": "off" },
+  },
+];
