@@ -123,6 +123,9 @@ export function prepare(input: CheckInput, outcome?: DataColumn): Prepared {
 }
 
 function checkSides(score: Float64Array, cutoff: number): void {
+  let same = true;
+  for (let i = 1; i < score.length && same; i++) same = score[i] === score[0];
+  if (same) throw new CutlineError(`--score: the score is constant (every used row is ${score[0]}); there is no discontinuity to study`);
   let below = 0;
   for (let i = 0; i < score.length; i++) if (score[i] < cutoff) below++;
   if (below === 0) throw new CutlineError(`--cutoff: no unit has a score below the cutoff ${cutoff}`);

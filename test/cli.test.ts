@@ -1,0 +1,115 @@
+// `cutline check` end to end: exit statuses, one-line errors, the JSON keys of DESIGN.md,
+// and the input file left untouched. Expectations come from DESIGN.md and METHODS.md §1.
+import { spawnSync } from 'child_process';
+import * as crypto from 'crypto';
+import * as fs from 'fs';
+import * as os from 'os';
+import * as path from 'path';
+import ExcelJS from 'exceljs';
+
+const root = path.resolve(__dirname, '..');
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cutline-cli-'));
+
+function run(args: string[]): { code: number | null; out: string; err: string } {
+  const r = spawnSync(process.execPath, [path.join(root, 'bin/cutline.cjs'), ...args], { encoding: 'utf8', cwd: root });
+  return { code: r.status, out: r.stdout, err: r.stderr };
+}
+
+function write(name: string, text: string): string {
+  const p = path.join(dir, name);
+  fs.writeFileSync(p, text);
+  return p;
+}
+
+/** A small fuzzy design: take-up 0.2 → 0.7 at 0, effect 2 (deterministic, no randomness needed). */
+function design(n = 400): string {
+  const lines = ['score,treated,y,age'];
+  for (let i = 0; i < n; i++) {
+    const r = -1 + (2 * (i + 0.5)) / n;
+    const u = ((i * 7919) % 1000) / 1000;
+    const d = u < (r >= 0 ? 0.7 : 0.2) ? 1 : 0;
+    const y = 1 + r + 2 * d + Math.sin(i * 1.7) * 0.3;
+    lines.push(`${r.toFixed(5)},${d},${y.toFixed(5)},${30 + (i % 17)}`);
+  }
+  return lines.join('\n') + '\n';
+}
+
+const base = (file: string): string[] => ['check', file, '--score', 'score', '--treated', 'treated', '--outcome', 'y', '--cutoff', '0'];
+
+describe('cutline check', () => {
+  const good = write('good.csv', design());
+
+  test('JSON output has the keys of DESIGN.md and nothing else on stdout', () => {
+    const before = crypto.createHash('sha256').update(fs.readFileSync(good)).digest('hex');
+    const r = run([...base(good), '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.cutoff).toBe(0);
+    expect(j.eligible).toBe('above');
+    expect(j.rows).toEqual({ read: 400, used: 400, dropped: 0 });
+    expect(j.bandwidth.rule).toBe('mse');
+    expect(j.bandwidth.value).toBeGreaterThan(0);
+    for (const k of ['estimate', 'se', 'ci', 'ci_robust', 'pvalue']) expect(j.takeup).toHaveProperty(k);
+    expect(j.outcomes[0].name).toBe('y');
+    expect(j.outcomes[0].effect.estimate).toBeCloseTo(j.outcomes[0].jump.estimate / j.takeup.estimate, 10);
+    const after = crypto.createHash('sha256').update(fs.readFileSync(good)).digest('hex');
+    expect(after).toBe(before);
+  });
+
+  test('a typed bandwidth is used as typed, and XLSX gives the same numbers as CSV', async () => {
+    const wb = new ExcelJS.Workbook();
+    const ws = wb.addWorksheet('data');
+    for (const line of design().trim().split('\n')) ws.addRow(line.split(',').map((c, i) => (i === 0 && line.startsWith('score') ? c : Number.isNaN(Number(c)) ? c : Number(c))));
+    const x = path.join(dir, 'good.xlsx');
+    await wb.xlsx.writeFile(x);
+    const a = JSON.parse(run([...base(good), '--bandwidth', '0.5', '--json']).out);
+    const b = JSON.parse(run([...base(x), '--bandwidth', '0.5', '--sheet', 'data', '--json']).out);
+    expect(a.bandwidth).toMatchObject({ value: 0.5, rule: 'typed' });
+    expect(b.outcomes[0].effect.estimate).toBeCloseTo(a.outcomes[0].effect.estimate, 12);
+    const bad = run([...base(x), '--sheet', 'nope']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/--sheet: no worksheet named "nope"/);
+  });
+
+  test('missing values are dropped listwise and counted', () => {
+    const text = design().split('\n');
+    text[5] = text[5].replace(/,[^,]*,/, ',NA,');
+    text[9] = text[9].replace(/^[^,]*/, '');
+    const r = run([...base(write('missing.csv', text.join('\n'))), '--json']);
+    expect(r.code).toBe(0);
+    expect(JSON.parse(r.out).rows).toEqual({ read: 400, used: 398, dropped: 2 });
+  });
+
+  test('the readable output says the verdict-free estimates and the cautions', () => {
+    const r = run(base(good));
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/Take-up jump/);
+    expect(r.out).toMatch(/effect for compliers/);
+    expect(r.out).toMatch(/not proof/);
+  });
+
+  const badCases: Array<[string, () => string[], RegExp]> = [
+    ['missing file', () => base(path.join(dir, 'nope.csv')), /nope\.csv: no such file/],
+    ['empty file', () => base(write('empty.csv', '')), /is empty/],
+    ['header only', () => base(write('header.csv', 'score,treated,y\n')), /no data rows/],
+    ['missing column', () => ['check', good, '--score', 'score', '--treated', 'treated', '--outcome', 'bill', '--cutoff', '0'], /--outcome: no column named "bill"/],
+    ['text in the outcome', () => base(write('text.csv', design().replace(/\n(-0\.99750,\d),[^,\n]*/, '\n$1,abc'))), /column "y" \(outcome\), row 2: not a number, found "abc"/],
+    ['treated not 0/1', () => base(write('treated.csv', design().replace(/\n(-0\.99750),\d/, '\n$1,2'))), /column "treated" \(treated\), row 2: treated must be 0, 1, TRUE or FALSE, found "2"/],
+    ['non-finite number', () => base(write('inf.csv', design().replace(/\n(-0\.99750,\d),[^\n,]*/, '\n$1,1e999'))), /row 2: not a number, found "1e999"/],
+    ['constant score', () => base(write('const.csv', 'score,treated,y\n' + '1,0,1\n1,1,2\n1,0,3\n'.repeat(5))), /the score is constant/],
+    ['no unit on one side', () => [...base(good).slice(0, -1), '5'], /no unit has a score at or above the cutoff 5/],
+    ['bandwidth too small', () => [...base(good), '--bandwidth', '0.004'], /holds \d units? (above|below) the cutoff; at least 3 are needed/],
+    ['unreadable workbook', () => base(write('broken.xlsx', 'PK\u0003\u0004 not really a zip')), /cannot be read as an \.xlsx workbook/],
+    ['cutoff not a number', () => [...base(good).slice(0, -1), 'sixty'], /--cutoff must be a number, got "sixty"/],
+    ['unknown option', () => [...base(good), '--bogus', '1'], /unknown option --bogus/],
+    ['bad kernel', () => [...base(good), '--kernel', 'gaussian'], /--kernel must be one of triangular, epanechnikov, uniform/],
+    ['no outcome', () => ['check', good, '--score', 'score', '--treated', 'treated', '--cutoff', '0'], /--outcome is required/],
+  ];
+  test.each(badCases)('bad input: %s → exit 2 and one line', (_name, args, message) => {
+    const r = run(args());
+    expect(r.code).toBe(2);
+    expect(r.out).toBe('');
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(message);
+  });
+});
