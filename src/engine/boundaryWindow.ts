@@ -18,6 +18,7 @@
 import { CutlineError } from './errors';
 import { KernelName, kernelWeight } from './kernels';
 import { invertSmall } from './linalg';
+import { argsortBy } from './argsort';
 
 export interface SideFit {
   /** True for the side R ≥ c. */
@@ -72,16 +73,15 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
     );
   }
   const out = Array.from({ length: q }, () => new Float64Array(n));
-  for (let i = 0; i < n; i++) {
-    const u = x[i] / h;
-    for (let j = 0; j < q; j++) {
-      let s = 0;
-      let pw = 1;
-      for (let b = 0; b < q; b++) {
-        s += inv[j][b] * pw;
-        pw *= u;
-      }
-      out[j][i] = (s * k[i]) / Math.pow(h, j);
+  for (let j = 0; j < q; j++) {
+    // Row j of Γ⁻¹ divided by h^j, as a polynomial in u evaluated by Horner's rule.
+    const c = inv[j].map((v) => v / Math.pow(h, j));
+    const o = out[j];
+    for (let i = 0; i < n; i++) {
+      const u = x[i] / h;
+      let s = c[q - 1];
+      for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
+      o[i] = s * k[i];
     }
   }
   return out;
@@ -91,30 +91,74 @@ function fmt(v: number): string {
   return Number(v.toPrecision(6)).toString();
 }
 
+// Sorted order of each score array seen, so that every window after the first
+// is two binary searches and a slice instead of a pass and a sort. Arrays
+// handed to the engine are never modified (by the engine or by the faces).
+const sortedCache = new WeakMap<object, Int32Array>();
+
+function sortedOrder(score: ArrayLike<number>): Int32Array {
+  let order = sortedCache.get(score as object);
+  if (!order) {
+    const all = new Int32Array(score.length);
+    for (let i = 0; i < all.length; i++) all[i] = i;
+    order = argsortBy(score, all);
+    sortedCache.set(score as object, order);
+  }
+  return order;
+}
+
+/** First position in the sorted order whose score is ≥ v (or > v when strict). */
+function lowerBound(score: ArrayLike<number>, order: Int32Array, v: number, strict: boolean): number {
+  let lo = 0;
+  let hi = order.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    const s = score[order[mid]];
+    if (strict ? s <= v : s < v) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
 /**
- * The units of one side inside the window, sorted by score, with their fit
- * weights. `rows` (optional) restricts the data to those positions.
+ * Positions inside the window on each side, sorted by score (ties by
+ * position). Every kernel is zero exactly outside the open interval (−1, 1).
  */
-export function sideFit(
+function windowPositions(score: ArrayLike<number>, cutoff: number, h: number, rows?: Int32Array): { above: Int32Array; below: Int32Array } {
+  if (rows) {
+    const above: number[] = [];
+    const below: number[] = [];
+    for (let t = 0; t < rows.length; t++) {
+      const xv = score[rows[t]] - cutoff;
+      if (xv >= 0) {
+        if (xv < h) above.push(rows[t]);
+      } else if (-xv < h) below.push(rows[t]);
+    }
+    return { above: argsortBy(score, Int32Array.from(above)), below: argsortBy(score, Int32Array.from(below)) };
+  }
+  const order = sortedOrder(score);
+  // below: cutoff − h < R < cutoff; above: cutoff ≤ R < cutoff + h (x computed as R − c, as in the fit).
+  let a = lowerBound(score, order, cutoff - h, true);
+  while (a < order.length && !(-(score[order[a]] - cutoff) < h)) a++;
+  while (a > 0 && -(score[order[a - 1]] - cutoff) < h && score[order[a - 1]] < cutoff) a--;
+  const c = lowerBound(score, order, cutoff, false);
+  let e = lowerBound(score, order, cutoff + h, false);
+  while (e > c && !(score[order[e - 1]] - cutoff < h)) e--;
+  while (e < order.length && score[order[e]] - cutoff < h) e++;
+  return { above: order.slice(c, e), below: order.slice(Math.min(a, c), c) };
+}
+
+/** One side's fit from its window positions (sorted by score). */
+function fitPositions(
   score: ArrayLike<number>,
   cutoff: number,
   h: number,
   kernel: KernelName,
   above: boolean,
   withQuadratic: boolean,
-  rows?: Int32Array,
+  positions: Int32Array,
 ): SideFit {
-  if (!(h > 0) || !Number.isFinite(h)) throw new CutlineError(`bandwidth must be a positive number, got ${h}`);
-  const total = rows ? rows.length : score.length;
-  const pos: number[] = [];
-  for (let t = 0; t < total; t++) {
-    const i = rows ? rows[t] : t;
-    const xv = score[i] - cutoff;
-    if ((xv >= 0) !== above) continue;
-    if (kernelWeight(kernel, xv / h) > 0) pos.push(i);
-  }
-  const index = Int32Array.from(pos);
-  index.sort((a, b) => score[a] - score[b] || a - b);
+  const index = positions;
   const n = index.length;
   const x = new Float64Array(n);
   const k = new Float64Array(n);
@@ -150,6 +194,28 @@ export function sideFit(
   return fit;
 }
 
+function checkBandwidth(h: number): void {
+  if (!(h > 0) || !Number.isFinite(h)) throw new CutlineError(`bandwidth must be a positive number, got ${h}`);
+}
+
+/**
+ * The units of one side inside the window, sorted by score, with their fit
+ * weights. `rows` (optional) restricts the data to those positions.
+ */
+export function sideFit(
+  score: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  above: boolean,
+  withQuadratic: boolean,
+  rows?: Int32Array,
+): SideFit {
+  checkBandwidth(h);
+  const pos = windowPositions(score, cutoff, h, rows);
+  return fitPositions(score, cutoff, h, kernel, above, withQuadratic, above ? pos.above : pos.below);
+}
+
 /** Both sides of the window at bandwidth h. */
 export function boundaryWindow(
   score: ArrayLike<number>,
@@ -159,12 +225,14 @@ export function boundaryWindow(
   options: { quadratic?: boolean; rows?: Int32Array } = {},
 ): Window {
   const quad = options.quadratic ?? true;
+  checkBandwidth(h);
+  const pos = windowPositions(score, cutoff, h, options.rows);
   return {
     cutoff,
     bandwidth: h,
     kernel,
-    above: sideFit(score, cutoff, h, kernel, true, quad, options.rows),
-    below: sideFit(score, cutoff, h, kernel, false, quad, options.rows),
+    above: fitPositions(score, cutoff, h, kernel, true, quad, pos.above),
+    below: fitPositions(score, cutoff, h, kernel, false, quad, pos.below),
   };
 }
 

@@ -115,11 +115,16 @@ export function prepare(input: CheckInput, outcome?: DataColumn): Prepared {
   return {
     rows,
     dropped,
-    score: compact(input.score.values, rows),
-    treated: compact(input.treated.values, rows),
-    outcome: outcome ? compact(outcome.values, rows) : undefined,
-    clusters: input.cluster ? compact(input.cluster.codes, rows) : undefined,
+    score: keep(input.score.values, rows, dropped),
+    treated: keep(input.treated.values, rows, dropped),
+    outcome: outcome ? keep(outcome.values, rows, dropped) : undefined,
+    clusters: input.cluster ? keep(input.cluster.codes, rows, dropped) : undefined,
   };
+}
+
+/** The column itself when no row is dropped (the engine never writes to it), else a compact copy. */
+function keep<T extends Float64Array | Int32Array>(values: T, rows: Int32Array, dropped: number): T {
+  return dropped === 0 ? values : compact(values, rows);
 }
 
 function checkSides(score: Float64Array, cutoff: number): void {
@@ -155,6 +160,8 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   const tk = prepare(input);
   checkSides(tk.score, cutoff);
   const tkWin = boundaryWindow(tk.score, cutoff, h, kernel);
+  // Windows depend on the rows alone: outcomes with the take-up's rows share its window.
+  const sameRows = (a: Int32Array): boolean => a.length === tk.rows.length && a.every((v, i) => v === tk.rows[i]);
   const sign: 1 | -1 = smoothJump(tkWin, tk.treated, 'hc0').estimate < 0 ? -1 : 1;
   if (sign < 0) {
     warnings.push(
@@ -162,12 +169,13 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     );
   }
   const opts = { bandwidth: h, kernel, variance, sign, level: options.level };
-  const takeupEst = estimatesAtCutoff(tk.score, tk.treated, tk.treated, cutoff, { ...opts, clusters: tk.clusters });
+  const takeupEst = estimatesAtCutoff(tk.score, tk.treated, tk.treated, cutoff, { ...opts, clusters: tk.clusters, window: tkWin });
   for (const w of takeupEst.warnings) if (!warnings.includes(w)) warnings.push(w);
 
   const outcomes = input.outcomes.map((col, j) => {
     const p = j === 0 ? first : prepare(input, col);
-    const est = estimatesAtCutoff(p.score, p.treated, p.outcome!, cutoff, { ...opts, clusters: p.clusters });
+    const window = sameRows(p.rows) ? tkWin : undefined;
+    const est = estimatesAtCutoff(p.score, p.treated, p.outcome!, cutoff, { ...opts, clusters: p.clusters, window });
     return {
       name: col.name,
       rows: { used: p.rows.length, dropped: p.dropped },

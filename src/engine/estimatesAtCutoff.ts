@@ -44,12 +44,12 @@ export function estimatesAtCutoff(
   treated: ArrayLike<number>,
   outcome: ArrayLike<number>,
   cutoff: number,
-  opts: { bandwidth: number; kernel: KernelName; variance: VarianceName; clusters?: Int32Array; sign: 1 | -1; level?: number },
+  opts: { bandwidth: number; kernel: KernelName; variance: VarianceName; clusters?: Int32Array; sign: 1 | -1; level?: number; window?: Window },
 ): CutoffEstimates {
-  const win = boundaryWindow(score, cutoff, opts.bandwidth, opts.kernel);
+  const win = opts.window ?? boundaryWindow(score, cutoff, opts.bandwidth, opts.kernel);
   const jo = { variance: opts.variance, clusters: opts.clusters, sign: opts.sign, level: opts.level };
   const d = smoothJump(win, treated, opts.variance, opts.sign);
-  const y = smoothJump(win, outcome, opts.variance, opts.sign);
+  const y = outcome === treated ? d : smoothJump(win, outcome, opts.variance, opts.sign);
   const takeup = jumpFrom(win, d, jo);
   const warnings = windowWarnings(win);
   if (takeup.ci_robust[0] <= 0 && takeup.ci_robust[1] >= 0) {
