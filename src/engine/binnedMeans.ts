@@ -80,24 +80,30 @@ export function binnedMeans(
   checkCount(opts.binsBelow, 'the number of bins below the cutoff');
   checkCount(opts.binsAbove, 'the number of bins above the cutoff');
   const total = opts.rows ? opts.rows.length : score.length;
-  const xs: [number[], number[]] = [[], []];
-  const ys: [number[], number[]] = [[], []];
+  let nAbove = 0;
   for (let t = 0; t < total; t++) {
     const i = opts.rows ? opts.rows[t] : t;
     const r = score[i];
     const v = values[i];
     if (!Number.isFinite(r)) throw new CutlineError(`the score must be a finite number; row ${i + 1} holds ${r}`);
     if (!Number.isFinite(v)) throw new CutlineError(`the values must be finite numbers; row ${i + 1} holds ${v}`);
-    const s = r >= cutoff ? 1 : 0;
-    xs[s].push(r - cutoff);
-    ys[s].push(v);
+    if (r >= cutoff) nAbove++;
+  }
+  const xs = [new Float64Array(total - nAbove), new Float64Array(nAbove)];
+  const ys = [new Float64Array(total - nAbove), new Float64Array(nAbove)];
+  const fill = [0, 0];
+  for (let t = 0; t < total; t++) {
+    const i = opts.rows ? opts.rows[t] : t;
+    const s = score[i] >= cutoff ? 1 : 0;
+    xs[s][fill[s]] = score[i] - cutoff;
+    ys[s][fill[s]++] = values[i];
   }
   const out: BinnedMean[] = [];
   const counts: number[] = [];
   for (const s of [0, 1] as const) {
     const side = s === 1 ? 'above' : 'below';
-    const x = Float64Array.from(xs[s]);
-    const y = Float64Array.from(ys[s]);
+    const x = xs[s];
+    const y = ys[s];
     if (x.length === 0) throw new CutlineError(`there are no units ${side} the cutoff; binned means need units on both sides`);
     // The side's span in x = R − c: below [min, 0), above [0, max].
     let lo = 0;

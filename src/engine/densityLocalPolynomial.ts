@@ -206,17 +206,24 @@ function comboVariance(up: SideFitResult, lo: SideFitResult, a: number, b: numbe
 }
 
 function collectWindows(score: ArrayLike<number>, cutoff: number, h: number, s: ScoreSummary, rows?: Int32Array) {
-  const hi: number[] = [];
-  const lo: number[] = [];
   const total = rows ? rows.length : score.length;
+  let na = 0;
+  let nb = 0;
+  for (let t = 0; t < total; t++) {
+    const x = score[rows ? rows[t] : t] - cutoff;
+    if (x >= 0 ? x < h : -x < h) x >= 0 ? na++ : nb++;
+  }
+  const xa = new Float64Array(na);
+  const xb = new Float64Array(nb);
+  na = nb = 0;
   for (let t = 0; t < total; t++) {
     const x = score[rows ? rows[t] : t] - cutoff;
     if (x >= 0) {
-      if (x < h) hi.push(x);
-    } else if (-x < h) lo.push(x);
+      if (x < h) xa[na++] = x;
+    } else if (-x < h) xb[nb++] = x;
   }
-  const xa = Float64Array.from(hi).sort();
-  const xb = Float64Array.from(lo).sort();
+  xa.sort();
+  xb.sort();
   const ecdf = (x: Float64Array, offset: number): Float64Array => {
     const F = new Float64Array(x.length);
     for (let i = x.length - 1; i >= 0; ) {

@@ -37,15 +37,26 @@ export function windowDistinctScores(
   bandwidth: number,
   rows?: Int32Array,
 ): DistinctScores {
-  const lo: number[] = [];
-  const hi: number[] = [];
   const total = rows ? rows.length : score.length;
+  const inWindow = (x: number) => (x >= 0 ? x < bandwidth : -x < bandwidth);
+  let na = 0;
+  let nb = 0;
   for (let t = 0; t < total; t++) {
     const x = score[rows ? rows[t] : t] - cutoff;
-    if (x >= 0 ? x < bandwidth : -x < bandwidth) (x >= 0 ? hi : lo).push(x);
+    if (inWindow(x)) x >= 0 ? na++ : nb++;
   }
-  const a = Float64Array.from(hi).sort();
-  const b = Float64Array.from(lo).sort();
+  const a = new Float64Array(na);
+  const b = new Float64Array(nb);
+  na = nb = 0;
+  for (let t = 0; t < total; t++) {
+    const x = score[rows ? rows[t] : t] - cutoff;
+    if (inWindow(x)) {
+      if (x >= 0) a[na++] = x;
+      else b[nb++] = x;
+    }
+  }
+  a.sort();
+  b.sort();
   return { below: countDistinctSorted(b), above: countDistinctSorted(a), unitsBelow: b.length, unitsAbove: a.length };
 }
 
