@@ -24,7 +24,7 @@
  */
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, pilotVariance, pilotWindow, thirdDerivative } from './bandwidthPilots';
-import { boundaryWindow, sideFit, SideFit } from './boundaryWindow';
+import { boundaryWindow, sideFit, SideFit, sortedOrder } from './boundaryWindow';
 import { CutlineError } from './errors';
 import { varianceOf } from './influence';
 import { KernelName } from './kernels';
@@ -41,12 +41,8 @@ export interface MseBandwidth {
 }
 
 function sideRange(score: ArrayLike<number>, cutoff: number, above: boolean): number {
-  let r = 0;
-  for (let i = 0; i < score.length; i++) {
-    const x = score[i] - cutoff;
-    if ((x >= 0) === above) r = Math.max(r, Math.abs(x));
-  }
-  return r;
+  const order = sortedOrder(score);
+  return above ? score[order[order.length - 1]] - cutoff : cutoff - score[order[0]];
 }
 
 /** 2 × x² coefficient and its influence terms on one side. */

@@ -11,7 +11,8 @@
  *   lies between the median score below and the median score above the cutoff.
  */
 import { CutlineError } from './errors';
-import { mean, median, sampleCovariance, sampleVariance } from './describe';
+import { mean, sampleCovariance, sampleVariance } from './describe';
+import { sortedOrder } from './boundaryWindow';
 import { invertSmall } from './linalg';
 
 export interface Pilots {
@@ -98,11 +99,16 @@ export function olsCoefficients(
 
 /** Units between the median score below and the median score above the cutoff. */
 export function medianBand(score: ArrayLike<number>, cutoff: number): Int32Array {
-  const lo: number[] = [];
-  const hi: number[] = [];
-  for (let i = 0; i < score.length; i++) (score[i] < cutoff ? lo : hi).push(score[i]);
-  const mLo = median(lo);
-  const mHi = median(hi);
+  // Medians read off the sorted order (shared with the windows, boundaryWindow.ts).
+  const order = sortedOrder(score);
+  let nLo = 0;
+  while (nLo < order.length && score[order[nLo]] < cutoff) nLo++;
+  const med = (from: number, count: number): number =>
+    count % 2 === 1
+      ? score[order[from + (count - 1) / 2]]
+      : 0.5 * (score[order[from + count / 2 - 1]] + score[order[from + count / 2]]);
+  const mLo = med(0, nLo);
+  const mHi = med(nLo, order.length - nLo);
   const out: number[] = [];
   for (let i = 0; i < score.length; i++) if (score[i] >= mLo && score[i] <= mHi) out.push(i);
   return Int32Array.from(out);

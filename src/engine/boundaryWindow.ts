@@ -96,7 +96,8 @@ function fmt(v: number): string {
 // handed to the engine are never modified (by the engine or by the faces).
 const sortedCache = new WeakMap<object, Int32Array>();
 
-function sortedOrder(score: ArrayLike<number>): Int32Array {
+/** Positions of all units sorted by score (ties by position), computed once per array. */
+export function sortedOrder(score: ArrayLike<number>): Int32Array {
   let order = sortedCache.get(score as object);
   if (!order) {
     const all = new Int32Array(score.length);

@@ -21,8 +21,7 @@ import { estimatesAtCutoff } from './estimatesAtCutoff';
 import { KernelName } from './kernels';
 import { compact, completeRows } from './listwise';
 import { VarianceName } from './residuals';
-import { smoothJump } from './smoothJump';
-import { boundaryWindow } from './boundaryWindow';
+import { applyWeights, boundaryWindow } from './boundaryWindow';
 
 export interface DataColumn {
   name: string;
@@ -162,7 +161,9 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   const tkWin = boundaryWindow(tk.score, cutoff, h, kernel);
   // Windows depend on the rows alone: outcomes with the take-up's rows share its window.
   const sameRows = (a: Int32Array): boolean => a.length === tk.rows.length && a.every((v, i) => v === tk.rows[i]);
-  const sign: 1 | -1 = smoothJump(tkWin, tk.treated, 'hc0').estimate < 0 ? -1 : 1;
+  const rawTakeup =
+    applyWeights(tkWin.above.coef1[0], tkWin.above.index, tk.treated) - applyWeights(tkWin.below.coef1[0], tkWin.below.index, tk.treated);
+  const sign: 1 | -1 = rawTakeup < 0 ? -1 : 1;
   if (sign < 0) {
     warnings.push(
       'take-up falls at the cutoff: eligibility is taken to be below the cutoff, and every jump is reported as below minus above',
@@ -174,8 +175,13 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
 
   const outcomes = input.outcomes.map((col, j) => {
     const p = j === 0 ? first : prepare(input, col);
-    const window = sameRows(p.rows) ? tkWin : undefined;
-    const est = estimatesAtCutoff(p.score, p.treated, p.outcome!, cutoff, { ...opts, clusters: p.clusters, window });
+    const shared = sameRows(p.rows);
+    const est = estimatesAtCutoff(p.score, p.treated, p.outcome!, cutoff, {
+      ...opts,
+      clusters: p.clusters,
+      window: shared ? tkWin : undefined,
+      takeup: shared ? takeupEst.smoothedTakeup : undefined,
+    });
     return {
       name: col.name,
       rows: { used: p.rows.length, dropped: p.dropped },

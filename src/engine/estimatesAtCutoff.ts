@@ -8,9 +8,10 @@ import { Estimate } from './estimate';
 import { effectFrom, jumpFrom } from './jumpAt';
 import { KernelName } from './kernels';
 import { VarianceName } from './residuals';
-import { smoothJump } from './smoothJump';
+import { smoothJump, SmoothedJump } from './smoothJump';
 
 export interface CutoffEstimates {
+  smoothedTakeup: SmoothedJump;
   window: Window;
   counts: { below: number; above: number };
   takeup: Estimate;
@@ -44,11 +45,11 @@ export function estimatesAtCutoff(
   treated: ArrayLike<number>,
   outcome: ArrayLike<number>,
   cutoff: number,
-  opts: { bandwidth: number; kernel: KernelName; variance: VarianceName; clusters?: Int32Array; sign: 1 | -1; level?: number; window?: Window },
+  opts: { bandwidth: number; kernel: KernelName; variance: VarianceName; clusters?: Int32Array; sign: 1 | -1; level?: number; window?: Window; takeup?: SmoothedJump },
 ): CutoffEstimates {
   const win = opts.window ?? boundaryWindow(score, cutoff, opts.bandwidth, opts.kernel);
   const jo = { variance: opts.variance, clusters: opts.clusters, sign: opts.sign, level: opts.level };
-  const d = smoothJump(win, treated, opts.variance, opts.sign);
+  const d = opts.takeup ?? smoothJump(win, treated, opts.variance, opts.sign);
   const y = outcome === treated ? d : smoothJump(win, outcome, opts.variance, opts.sign);
   const takeup = jumpFrom(win, d, jo);
   const warnings = windowWarnings(win);
@@ -58,6 +59,7 @@ export function estimatesAtCutoff(
     );
   }
   return {
+    smoothedTakeup: d,
     window: win,
     counts: { below: win.below.index.length, above: win.above.index.length },
     takeup,

@@ -46,6 +46,8 @@ export function fitResiduals(side: SideFit, values: ArrayLike<number>, degree: 1
 export function nnResiduals(side: SideFit, values: ArrayLike<number>, J = NN_NEIGHBOURS): Float64Array {
   const { index, x } = side;
   const n = index.length;
+  const v = new Float64Array(n);
+  for (let t = 0; t < n; t++) v[t] = values[index[t]];
   const e = new Float64Array(n);
   const jj = Math.min(J, n - 1);
   const scale = Math.sqrt(jj / (jj + 1));
@@ -53,13 +55,13 @@ export function nnResiduals(side: SideFit, values: ArrayLike<number>, J = NN_NEI
     let l = t - 1;
     let r = t + 1;
     let sum = 0;
+    const xt = x[t];
     for (let c = 0; c < jj; c++) {
-      const dl = l >= 0 ? x[t] - x[l] : Infinity;
-      const dr = r < n ? x[r] - x[t] : Infinity;
-      if (dl <= dr) sum += values[index[l--]];
-      else sum += values[index[r++]];
+      // Take the left neighbour when it is at least as close (ties go left).
+      if (r >= n || (l >= 0 && xt - x[l] <= x[r] - xt)) sum += v[l--];
+      else sum += v[r++];
     }
-    e[t] = scale * (values[index[t]] - sum / jj);
+    e[t] = scale * (v[t] - sum / jj);
   }
   return e;
 }
