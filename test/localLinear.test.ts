@@ -9,7 +9,8 @@
  * against the explicit formula G/(G−1)·Σ_g(Σ ±ω_i ε̂_i)²).
  */
 import { applyWeights, boundaryWindow, SideFit } from '../src/engine/boundaryWindow';
-import { jumpAt } from '../src/engine/jumpAt';
+import { clusterCount } from '../src/engine/influence';
+import { jumpAt, windowClusters } from '../src/engine/jumpAt';
 import { KernelName } from '../src/engine/kernels';
 import { sideResiduals } from '../src/engine/residuals';
 import { readCsv, readJson, rel } from './fixtures/estimates/readFixture';
@@ -37,7 +38,7 @@ interface Case {
   se_hc1: number;
   jump_robust: number;
   se_robust_hc0: number;
-  cluster?: Record<string, { se: number; clusters: number; spanning: number }>;
+  cluster?: Record<string, { se: number; cross_cov: number; clusters: number; spanning: number }>;
 }
 
 const cases = readJson<Case[]>('local_linear.json');
@@ -97,8 +98,11 @@ describe.each(cases.map((c) => [c.name, c] as const))('local linear vs R lm/sand
       const clusters = Int32Array.from(data[col]);
       const est = jumpAt(win, v, { variance: 'cluster', clusters });
       expectRel(est.se, ref.se);
-      // The fixture's cases include clusters spanning the cutoff (cross-side covariance).
+      // Clusters spanning the cutoff: R's cross-side covariance Cov(â₊, â₋) is not 0, so the
+      // match above includes the cross term (−2·Cov) of the jump's variance.
       expect(ref.spanning).toBeGreaterThanOrEqual(1);
+      expect(Math.abs(2 * ref.cross_cov)).toBeGreaterThan(1e-4 * ref.se ** 2);
+      expect(clusterCount(windowClusters(win, clusters)!)).toBe(ref.clusters); // G of the G/(G−1) factor
     });
   }
 });
