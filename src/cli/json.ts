@@ -30,6 +30,25 @@ export function toJson(r: CheckResult): Record<string, unknown> {
       window: o.window,
       jump: estimate(o.jump),
       effect: estimate(o.effect),
+      validity: {
+        statistic: o.validity.statistic,
+        pvalue: o.validity.pvalue,
+        pvalue_holm: o.validity.pvalue_holm,
+        critical_value: o.validity.critical_value,
+        intervals: o.validity.intervals,
+        draws: o.validity.draws,
+        seed: o.validity.seed,
+        bandwidth: o.validity.bandwidth,
+        window: o.validity.window,
+        worst: o.validity.worst,
+        by_bandwidth: o.validity.by_bandwidth.map((b) =>
+          b.error !== undefined
+            ? { multiple: b.multiple, bandwidth: b.bandwidth, error: b.error }
+            : { multiple: b.multiple, bandwidth: b.bandwidth, statistic: b.statistic, pvalue: b.pvalue, critical_value: b.critical_value },
+        ),
+        ...(o.validity.within !== undefined ? { within: o.validity.within } : {}),
+      },
+      ...(o.compliers ? { compliers: o.compliers } : {}),
       warnings: o.warnings,
     })),
     warnings: r.warnings,

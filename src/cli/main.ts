@@ -16,8 +16,21 @@ import { readTable } from './readTable';
 
 const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
-  [--variance nn|hc0|hc1|cluster] [--cluster COL] [--covariate COL …] [--json]
+  [--variance nn|hc0|hc1|cluster] [--cluster COL] [--covariate COL …]
+  [--draws N] [--seed N] [--grid N] [--trim NUM] [--multiplier normal|rademacher]
+  [--sensitivity 0.5,0.75,1,1.5,2|off] [--within COL] [--json]
 `;
+
+/** `--sensitivity 0.5,0.75,1,1.5,2` or `off`. */
+function sensitivityOption(s: string | undefined): number[] | undefined {
+  if (s === undefined) return undefined;
+  if (s.trim().toLowerCase() === 'off') return [];
+  const parts = s.split(',').map((p) => p.trim());
+  const values = parts.map(Number);
+  const bad = parts.findIndex((p, i) => p === '' || !(values[i] > 0) || !Number.isFinite(values[i]));
+  if (bad >= 0) throw new CutlineError(`--sensitivity must be positive multiples separated by commas, or off; got ${JSON.stringify(parts[bad])}`);
+  return values;
+}
 
 async function check(args: ParsedArgs): Promise<void> {
   const file = args.file;
@@ -39,6 +52,14 @@ async function check(args: ParsedArgs): Promise<void> {
   const variance = choiceOption(args, 'variance', VARIANCE_NAMES) ?? (clusterName ? 'cluster' : undefined);
   if (variance === 'cluster' && !clusterName) throw new CutlineError('--variance cluster needs --cluster COL');
 
+  const draws = numberOption(args, 'draws', (v) => (Number.isInteger(v) && v >= 1 ? null : 'must be a whole number of at least 1'));
+  const seed = numberOption(args, 'seed', (v) => (Number.isInteger(v) && v >= 0 && v <= 4294967295 ? null : 'must be a whole number from 0 to 4294967295'));
+  const grid = numberOption(args, 'grid', (v) => (Number.isInteger(v) && v >= 2 ? null : 'must be a whole number of at least 2'));
+  const trim = numberOption(args, 'trim', (v) => (v >= 0 ? null : 'must be at least 0'));
+  const multiplier = choiceOption(args, 'multiplier', ['normal', 'rademacher'] as const);
+  const sensitivity = sensitivityOption(one(args, 'sensitivity'));
+  const withinName = one(args, 'within');
+
   const table = await readTable(file, one(args, 'sheet'));
   const input: CheckInput = {
     score: numericColumn(table, scoreName, 'score'),
@@ -46,8 +67,9 @@ async function check(args: ParsedArgs): Promise<void> {
     outcomes: outcomeNames.map((o) => numericColumn(table, o, 'outcome')),
     covariates: (args.values.get('covariate') ?? []).map((c) => numericColumn(table, c, 'covariate')),
     cluster: clusterName ? labelColumn(table, clusterName, 'cluster') : undefined,
+    within: withinName ? labelColumn(table, withinName, 'within') : undefined,
   };
-  const result = runCheck(input, { cutoff, bandwidth, rule, kernel, variance });
+  const result = runCheck(input, { cutoff, bandwidth, rule, kernel, variance, draws, seed, grid, trim, multiplier, sensitivity });
   if (args.flags.has('json')) process.stdout.write(JSON.stringify(toJson(result), null, 2) + '\n');
   else process.stdout.write(readable(file, result));
 }

@@ -2,7 +2,7 @@
  * The readable (default) output of `cutline check`: Cutline's own layout, a
  * block per question an evaluator asks, with the cautions of METHODS.md.
  */
-import { CheckResult, EstimateSummary } from '../engine/check';
+import { CheckResult, EstimateSummary, OutcomeResult } from '../engine/check';
 import { interval, num, padLeft, padRight, pval, wrap } from './format';
 
 const COLS = [28, 12, 11, 26, 26, 9];
@@ -34,6 +34,36 @@ export const GENERAL_CAUTIONS = [
   'Cutline informs, and does not replace, the judgement of a qualified evaluator.',
 ];
 
+function armName(arm: 0 | 1): string {
+  return arm === 1 ? 'treated compliers' : 'untreated compliers';
+}
+
+function validityBlock(o: OutcomeResult): string[] {
+  const v = o.validity;
+  const lines: string[] = [];
+  const verdict = v.rejects ? 'the data contradict the design at 5%' : 'the data do not contradict the design at 5%';
+  const holm = v.pvalue_holm !== v.pvalue ? `, Holm-adjusted ${pval(v.pvalue_holm)}` : '';
+  lines.push(`${o.name}${v.within ? ` (within cells of ${v.within})` : ''}: ${verdict} (p = ${pval(v.pvalue)}${holm})`);
+  lines.push(
+    `  statistic ${num(v.statistic)}, 5% critical value ${num(v.critical_value)}, ${v.intervals} intervals, ${v.draws} draws (seed ${v.seed}), ` +
+      `${v.window.below} below / ${v.window.above} above in the window`,
+  );
+  const cell = v.worst.cell !== undefined ? ` in cell ${v.worst.cell}` : '';
+  lines.push(
+    `  worst interval (largest t): ${armName(v.worst.arm)}, outcomes from ${num(v.worst.from)} to ${num(v.worst.to)}${cell} (t = ${num(v.worst.t)})`,
+  );
+  if (v.by_bandwidth.length > 1) {
+    const cells = v.by_bandwidth.map((b) =>
+      b.error !== undefined ? `×${b.multiple}: cannot run` : `×${b.multiple} (${num(b.bandwidth, 3)}): p ${pval(b.pvalue!)}${b.rejects ? ' reject' : ''}`,
+    );
+    lines.push(`  by bandwidth: ${cells.join('; ')}`);
+  }
+  if (o.compliers) {
+    lines.push(`  complier means: treated ${num(o.compliers.mean_treated)}, untreated ${num(o.compliers.mean_untreated)}`);
+  }
+  return lines;
+}
+
 export function readable(file: string, r: CheckResult): string {
   const out: string[] = [];
   const side = r.eligible === 'above' ? `score ≥ ${r.cutoff}` : `score < ${r.cutoff}`;
@@ -54,6 +84,12 @@ export function readable(file: string, r: CheckResult): string {
   }
   out.push('');
   out.push('p: two-sided, robust bias-corrected. Jumps are eligible side minus the other side.');
+  out.push('');
+  out.push(
+    `Do the data contradict the design? Outcome–treatment test (Arai et al. 2022) at bandwidth ${num(r.test_bandwidth.value)} ` +
+      `(${r.test_bandwidth.rule})`,
+  );
+  for (const o of r.outcomes) out.push(...validityBlock(o));
   const warnings = [...r.warnings, ...r.outcomes.flatMap((o) => o.warnings.map((w) => `${o.name}: ${w}`))];
   if (warnings.length > 0) {
     out.push('');

@@ -22,6 +22,11 @@ import { KernelName } from './kernels';
 import { compact, completeRows } from './listwise';
 import { VarianceName } from './residuals';
 import { applyWeights, boundaryWindow } from './boundaryWindow';
+import { bandwidthMse } from './bandwidthMse';
+import { complierMeans } from './complierDistributions';
+import { holmAdjust } from './holm';
+import { MultiplierName } from './validityBootstrap';
+import { validityByBandwidth, validityTest, ValidityAtBandwidth, verdictWarnings } from './validityTest';
 
 export interface DataColumn {
   name: string;
@@ -42,6 +47,8 @@ export interface CheckInput {
   outcomes: DataColumn[];
   covariates?: DataColumn[];
   cluster?: CodeColumn;
+  /** A discrete covariate: the validity test is run within its cells. */
+  within?: CodeColumn;
 }
 
 export interface CheckOptions {
@@ -51,6 +58,32 @@ export interface CheckOptions {
   kernel?: KernelName;
   variance?: VarianceName;
   level?: number;
+  draws?: number;
+  seed?: number;
+  grid?: number;
+  trim?: number;
+  multiplier?: MultiplierName;
+  /** Multiples of the test bandwidth for the sensitivity table; [] for the test bandwidth alone. */
+  sensitivity?: number[];
+}
+
+export const DEFAULT_SENSITIVITY = [0.5, 0.75, 1, 1.5, 2];
+
+export interface ValiditySummary {
+  statistic: number;
+  pvalue: number;
+  /** Holm-adjusted across the outcomes. */
+  pvalue_holm: number;
+  rejects: boolean;
+  critical_value: number;
+  intervals: number;
+  draws: number;
+  seed: number;
+  bandwidth: number;
+  window: { below: number; above: number };
+  worst: { arm: 0 | 1; from: number; to: number; t: number; cell?: number };
+  by_bandwidth: ValidityAtBandwidth[];
+  within?: string;
 }
 
 export interface EstimateSummary {
@@ -71,6 +104,8 @@ export interface OutcomeResult {
   takeup: EstimateSummary;
   jump: EstimateSummary;
   effect: EstimateSummary;
+  validity: ValiditySummary;
+  compliers?: { mean_treated: number; mean_untreated: number };
   warnings: string[];
 }
 
@@ -80,6 +115,8 @@ export interface CheckResult {
   rows: { read: number; used: number; dropped: number };
   bandwidth: { value: number; rule: BandwidthRule | 'typed'; kernel: KernelName; variance: VarianceName; window: { below: number; above: number } };
   takeup: EstimateSummary;
+  /** The bandwidth of the validity test: mse of take-up × n^(−1/20), or the typed one. */
+  test_bandwidth: { value: number; rule: 'undersmoothed mse' | 'typed' };
   outcomes: OutcomeResult[];
   warnings: string[];
 }
@@ -106,10 +143,12 @@ export interface Prepared {
   clusters?: Int32Array;
 }
 
-/** Listwise rows for score, treated, an optional outcome and the cluster. */
-export function prepare(input: CheckInput, outcome?: DataColumn): Prepared {
+/** Listwise rows for score, treated, an optional outcome, the cluster (and the within cells if asked). */
+export function prepare(input: CheckInput, outcome?: DataColumn, withCells = false): Prepared & { cells?: Int32Array } {
   const n = input.score.values.length;
-  const { rows, dropped } = completeRows(n, [input.score.missing, input.treated.missing, outcome?.missing, input.cluster?.missing]);
+  const masks = [input.score.missing, input.treated.missing, outcome?.missing, input.cluster?.missing];
+  if (withCells) masks.push(input.within?.missing);
+  const { rows, dropped } = completeRows(n, masks);
   if (rows.length === 0) throw new CutlineError('no row has every column the check needs; nothing to estimate');
   return {
     rows,
@@ -118,6 +157,7 @@ export function prepare(input: CheckInput, outcome?: DataColumn): Prepared {
     treated: keep(input.treated.values, rows, dropped),
     outcome: outcome ? keep(outcome.values, rows, dropped) : undefined,
     clusters: input.cluster ? keep(input.cluster.codes, rows, dropped) : undefined,
+    cells: withCells && input.within ? keep(input.within.codes, rows, dropped) : undefined,
   };
 }
 
@@ -173,6 +213,20 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   const takeupEst = estimatesAtCutoff(tk.score, tk.treated, tk.treated, cutoff, { ...opts, clusters: tk.clusters, window: tkWin });
   for (const w of takeupEst.warnings) if (!warnings.includes(w)) warnings.push(w);
 
+  // The validity test's bandwidth: undersmoothed mse of take-up (METHODS §4), or the typed one.
+  const testH =
+    options.bandwidth ?? bandwidthMse(tk.score, tk.treated, cutoff, kernel).bandwidth * Math.pow(tk.score.length, -1 / 20);
+  const multiples = (options.sensitivity ?? DEFAULT_SENSITIVITY).filter((m) => m !== 1);
+  const vopts = {
+    kernel,
+    sign,
+    draws: options.draws,
+    seed: options.seed,
+    grid: options.grid,
+    trim: options.trim,
+    multiplier: options.multiplier,
+  };
+
   const outcomes = input.outcomes.map((col, j) => {
     const p = j === 0 ? first : prepare(input, col);
     const shared = sameRows(p.rows);
@@ -182,15 +236,55 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
       window: shared ? tkWin : undefined,
       takeup: shared ? takeupEst.smoothedTakeup : undefined,
     });
-    return {
+    const own = est.warnings.filter((w) => !warnings.includes(w));
+    const vp = input.within ? prepare(input, col, true) : p;
+    const v = validityTest(vp.score, vp.treated, vp.outcome!, cutoff, { ...vopts, bandwidth: testH, cells: vp.cells });
+    const others = validityByBandwidth(vp.score, vp.treated, vp.outcome!, cutoff, testH, multiples, { ...vopts, cells: vp.cells });
+    const at1: ValidityAtBandwidth = {
+      multiple: 1,
+      bandwidth: testH,
+      statistic: v.statistic,
+      pvalue: v.pvalue,
+      critical_value: v.critical_value,
+      rejects: v.pvalue <= 0.05,
+    };
+    const byBandwidth = multiples.length === 0 ? [at1] : [...others, at1].sort((a, b) => a.multiple - b.multiple);
+    for (const w of [...v.warnings, ...verdictWarnings(byBandwidth)]) if (!own.includes(w) && !warnings.includes(w)) own.push(w);
+    let compliers: OutcomeResult['compliers'];
+    if (est.takeup.estimate > 0) {
+      const m = complierMeans(p.score, p.treated, p.outcome!, cutoff, { bandwidth: h, kernel, sign });
+      compliers = { mean_treated: m.mean_treated, mean_untreated: m.mean_untreated };
+    }
+    const result: OutcomeResult = {
       name: col.name,
       rows: { used: p.rows.length, dropped: p.dropped },
       window: est.counts,
       takeup: summary(est.takeup),
       jump: summary(est.jump),
       effect: summary(est.effect),
-      warnings: est.warnings.filter((w) => !warnings.includes(w)),
+      validity: {
+        statistic: v.statistic,
+        pvalue: v.pvalue,
+        pvalue_holm: v.pvalue,
+        rejects: v.pvalue <= 0.05,
+        critical_value: v.critical_value,
+        intervals: v.intervals,
+        draws: v.draws,
+        seed: v.seed,
+        bandwidth: testH,
+        window: v.counts,
+        worst: v.worst,
+        by_bandwidth: byBandwidth,
+        within: input.within?.name,
+      },
+      compliers,
+      warnings: own,
     };
+    return result;
+  });
+  const holm = holmAdjust(outcomes.map((o) => o.validity.pvalue));
+  outcomes.forEach((o, j) => {
+    o.validity.pvalue_holm = holm[j];
   });
 
   return {
@@ -199,6 +293,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     rows: { read: n, used: first.rows.length, dropped: first.dropped },
     bandwidth: { value: h, rule: bw.rule, kernel, variance, window: takeupEst.counts },
     takeup: summary(takeupEst.takeup),
+    test_bandwidth: { value: testH, rule: options.bandwidth !== undefined ? 'typed' : 'undersmoothed mse' },
     outcomes,
     warnings,
   };
