@@ -56,6 +56,51 @@ describe('cutline check', () => {
     expect(after).toBe(before);
   });
 
+  test('validity, compliers, density and balance keys; Holm, sensitivity and bins', () => {
+    const r = run([...base(good), '--outcome', 'age', '--covariate', 'age', '--draws', '199', '--bins', '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    const v = j.outcomes[0].validity;
+    for (const k of ['statistic', 'pvalue', 'critical_value', 'intervals', 'draws', 'seed', 'bandwidth', 'worst', 'by_bandwidth']) expect(v).toHaveProperty(k);
+    expect(v.draws).toBe(199);
+    expect(v.seed).toBe(1);
+    expect(v.by_bandwidth.map((b: { multiple: number }) => b.multiple)).toEqual([0.5, 0.75, 1, 1.5, 2]);
+    // Holm over two outcomes: the adjusted p-value of the smaller raw p is min(1, 2p) (Holm 1979).
+    const ps = j.outcomes.map((o: { validity: { pvalue: number } }) => o.validity.pvalue);
+    const smallest = ps.indexOf(Math.min(...ps));
+    expect(j.outcomes[smallest].validity.pvalue_holm).toBeCloseTo(Math.min(1, 2 * ps[smallest]), 12);
+    // Complier means differ by the complier effect (METHODS §5 consistency check).
+    const o = j.outcomes[0];
+    expect(o.compliers.mean_treated - o.compliers.mean_untreated).toBeCloseTo(o.effect.estimate, 9);
+    expect(['local_polynomial', 'mccrary']).toContain(j.density.method);
+    expect(j.density.mccrary.bin).toBeGreaterThan(0);
+    expect(j.balance[0].name).toBe('age');
+    expect(j.balance[0]).toHaveProperty('permutation_pvalue');
+    expect(j.bins.map((b: { name: string }) => b.name)).toEqual(['treated', 'y', 'age', 'age']);
+    const same = run([...base(good), '--outcome', 'age', '--covariate', 'age', '--draws', '199', '--bins', '--json']);
+    expect(same.out).toBe(r.out); // same seed, same document
+    const off = JSON.parse(run([...base(good), '--sensitivity', 'off', '--draws', '99', '--json']).out);
+    expect(off.outcomes[0].validity.by_bandwidth).toHaveLength(1);
+  });
+
+  test('a donut leaves units near the cutoff out and says how many', () => {
+    const j = JSON.parse(run([...base(good), '--donut', '0.05', '--draws', '99', '--json']).out);
+    expect(j.donut).toEqual({ radius: 0.05, excluded: 20 });
+    expect(j.rows.used).toBe(380);
+  });
+
+  test('a score with few distinct values is flagged for the density tests', () => {
+    const lines = ['score,treated,y'];
+    for (let i = 0; i < 600; i++) {
+      const r = (i % 21) - 10;
+      lines.push(`${r},${(i * 37) % 100 < (r >= 0 ? 70 : 20) ? 1 : 0},${(r + Math.sin(i)).toFixed(4)}`);
+    }
+    const r = run([...base(write('discrete.csv', lines.join('\n'))), '--draws', '99', '--bandwidth', '6', '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.density.warnings.join(' ')).toMatch(/few distinct values/);
+  });
+
   test('a typed bandwidth is used as typed, and XLSX gives the same numbers as CSV', async () => {
     const wb = new ExcelJS.Workbook();
     const ws = wb.addWorksheet('data');
@@ -104,6 +149,16 @@ describe('cutline check', () => {
     ['unknown option', () => [...base(good), '--bogus', '1'], /unknown option --bogus/],
     ['bad kernel', () => [...base(good), '--kernel', 'gaussian'], /--kernel must be one of triangular, epanechnikov, uniform/],
     ['no outcome', () => ['check', good, '--score', 'score', '--treated', 'treated', '--cutoff', '0'], /--outcome is required/],
+    ['draws 0', () => [...base(good), '--draws', '0'], /--draws must be a whole number of at least 1, got 0/],
+    ['draws negative', () => [...base(good), '--draws', '-5'], /--draws must be a whole number of at least 1, got -5/],
+    ['grid 1', () => [...base(good), '--grid', '1'], /--grid must be a whole number of at least 2, got 1/],
+    ['trim negative', () => [...base(good), '--trim', '-0.1'], /--trim must be at least 0, got -0.1/],
+    ['bad sensitivity', () => [...base(good), '--sensitivity', '0.5,x'], /--sensitivity must be positive multiples separated by commas, or off; got "x"/],
+    ['bad multiplier', () => [...base(good), '--multiplier', 'uniform'], /--multiplier must be one of normal, rademacher/],
+    ['donut empties a side', () => [...base(good), '--donut', '5'], /--donut 5 leaves no unit below the cutoff/],
+    ['bin wider than the range', () => [...base(good), '--density-bin', '50'], /McCrary's density test could not be computed: .*bin/],
+    ['bins without json', () => [...base(good), '--bins'], /--bins adds the binned tables to the JSON document/],
+    ['constant outcome', () => base(write('consty.csv', design().replace(/^(-?[\d.]+,\d),[^,\n]*/gm, '$1,5'))), /outcome|constant|one value/],
   ];
   test.each(badCases)('bad input: %s → exit 2 and one line', (_name, args, message) => {
     const r = run(args());

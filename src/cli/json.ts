@@ -51,6 +51,23 @@ export function toJson(r: CheckResult): Record<string, unknown> {
       ...(o.compliers ? { compliers: o.compliers } : {}),
       warnings: o.warnings,
     })),
+    ...(r.density
+      ? {
+          density: {
+            method: r.density.method,
+            log_ratio: r.density.log_ratio,
+            se: r.density.se,
+            pvalue: r.density.pvalue,
+            ...(r.density.mccrary ? { mccrary: r.density.mccrary } : {}),
+            ...(r.density.local_polynomial ? { local_polynomial: r.density.local_polynomial } : {}),
+            caution: r.density.caution,
+            warnings: r.density.warnings,
+          },
+        }
+      : {}),
+    ...(r.balance ? { balance: r.balance } : {}),
+    ...(r.bins ? { bins: r.bins } : {}),
+    ...(r.donut ? { donut: r.donut } : {}),
     warnings: r.warnings,
   };
 }

@@ -18,7 +18,8 @@ const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
   [--variance nn|hc0|hc1|cluster] [--cluster COL] [--covariate COL …]
   [--draws N] [--seed N] [--grid N] [--trim NUM] [--multiplier normal|rademacher]
-  [--sensitivity 0.5,0.75,1,1.5,2|off] [--within COL] [--json]
+  [--sensitivity 0.5,0.75,1,1.5,2|off] [--within COL] [--density-bin NUM] [--density-bandwidth NUM]
+  [--donut NUM] [--json [--bins]]
 `;
 
 /** `--sensitivity 0.5,0.75,1,1.5,2` or `off`. */
@@ -59,6 +60,11 @@ async function check(args: ParsedArgs): Promise<void> {
   const multiplier = choiceOption(args, 'multiplier', ['normal', 'rademacher'] as const);
   const sensitivity = sensitivityOption(one(args, 'sensitivity'));
   const withinName = one(args, 'within');
+  const densityBin = numberOption(args, 'density-bin', (v) => (v > 0 ? null : 'must be positive'));
+  const densityBandwidth = numberOption(args, 'density-bandwidth', (v) => (v > 0 ? null : 'must be positive'));
+  const donut = numberOption(args, 'donut', (v) => (v > 0 ? null : 'must be positive'));
+  const bins = args.flags.has('bins');
+  if (bins && !args.flags.has('json')) throw new CutlineError('--bins adds the binned tables to the JSON document: use it with --json');
 
   const table = await readTable(file, one(args, 'sheet'));
   const input: CheckInput = {
@@ -69,7 +75,23 @@ async function check(args: ParsedArgs): Promise<void> {
     cluster: clusterName ? labelColumn(table, clusterName, 'cluster') : undefined,
     within: withinName ? labelColumn(table, withinName, 'within') : undefined,
   };
-  const result = runCheck(input, { cutoff, bandwidth, rule, kernel, variance, draws, seed, grid, trim, multiplier, sensitivity });
+  const result = runCheck(input, {
+    cutoff,
+    bandwidth,
+    rule,
+    kernel,
+    variance,
+    draws,
+    seed,
+    grid,
+    trim,
+    multiplier,
+    sensitivity,
+    densityBin,
+    densityBandwidth,
+    donut,
+    bins,
+  });
   if (args.flags.has('json')) process.stdout.write(JSON.stringify(toJson(result), null, 2) + '\n');
   else process.stdout.write(readable(file, result));
 }

@@ -64,12 +64,61 @@ function validityBlock(o: OutcomeResult): string[] {
   return lines;
 }
 
+function densityBlock(r: CheckResult): string[] {
+  const d = r.density;
+  if (!d) return [];
+  const lines = ['', 'Did units sort themselves across the cutoff? Density of the score'];
+  if (d.local_polynomial) {
+    const l = d.local_polynomial;
+    lines.push(
+      `  local polynomial (Cattaneo, Jansson & Ma 2020)${d.method === 'local_polynomial' ? ' [headline]' : ''}: ` +
+        `densities ${num(l.density_below)} below, ${num(l.density_above)} above; log ratio ${num(l.log_ratio)} (se ${num(l.se)}), p = ${pval(l.pvalue)}; bandwidth ${num(l.bandwidth)}`,
+    );
+  }
+  if (d.mccrary) {
+    const m = d.mccrary;
+    lines.push(
+      `  McCrary (2008)${d.method === 'mccrary' ? ' [headline]' : ''}: densities ${num(m.density_below)} below, ${num(m.density_above)} above; ` +
+        `log ratio ${num(m.log_ratio)} (se ${num(m.se)}), p = ${pval(m.pvalue)}; bin ${num(m.bin)}, bandwidth ${num(m.bandwidth)}`,
+    );
+  }
+  lines.push(`  ${wrap(d.caution, 96, '  ')}`);
+  return lines;
+}
+
+function balanceBlock(r: CheckResult): string[] {
+  if (!r.balance || r.balance.length === 0) return [];
+  const lines = ['', 'Do pre-treatment characteristics jump at the cutoff? (Holm-adjusted across covariates)'];
+  lines.push(
+    [padRight('', 26), padLeft('jump', 12), padLeft('p', 9), padLeft('p Holm', 9), padLeft('perm. p', 9), padLeft('perm. Holm', 12), padLeft('q', 7)].join(''),
+  );
+  for (const b of r.balance) {
+    const f = (v: number | undefined): string => (v === undefined ? '–' : pval(v));
+    lines.push(
+      [
+        padRight(`  ${b.name}`, 26),
+        padLeft(b.jump === undefined ? '–' : num(b.jump), 12),
+        padLeft(f(b.pvalue), 9),
+        padLeft(f(b.pvalue_holm), 9),
+        padLeft(f(b.permutation_pvalue), 9),
+        padLeft(f(b.permutation_pvalue_holm), 12),
+        padLeft(b.q === undefined ? '–' : String(b.q), 7),
+      ].join(''),
+    );
+  }
+  lines.push('  p: robust local linear jump; perm. p: Canay & Kamat (2018) permutation test of the q units nearest the cutoff on each side.');
+  return lines;
+}
+
 export function readable(file: string, r: CheckResult): string {
   const out: string[] = [];
   const side = r.eligible === 'above' ? `score ≥ ${r.cutoff}` : `score < ${r.cutoff}`;
   out.push(`Cutline check of ${file}`);
   out.push(`Cutoff ${r.cutoff}; eligible units: ${side}`);
-  out.push(`Rows: ${r.rows.read} read, ${r.rows.used} used, ${r.rows.dropped} dropped for missing values`);
+  out.push(
+    `Rows: ${r.rows.read} read, ${r.rows.used} used, ${r.rows.dropped} dropped for missing values` +
+      (r.donut ? ` or inside the donut (${r.donut.excluded} rows with |score − ${r.cutoff}| < ${r.donut.radius} left out of every estimate and test)` : ''),
+  );
   out.push(
     `Bandwidth ${num(r.bandwidth.value)} (${r.bandwidth.rule === 'typed' ? 'typed' : `rule ${r.bandwidth.rule}`}, ` +
       `${r.bandwidth.kernel} kernel, ${r.bandwidth.variance} variance): ${r.bandwidth.window.below} units below, ${r.bandwidth.window.above} above`,
@@ -90,7 +139,14 @@ export function readable(file: string, r: CheckResult): string {
       `(${r.test_bandwidth.rule})`,
   );
   for (const o of r.outcomes) out.push(...validityBlock(o));
-  const warnings = [...r.warnings, ...r.outcomes.flatMap((o) => o.warnings.map((w) => `${o.name}: ${w}`))];
+  out.push(...densityBlock(r));
+  out.push(...balanceBlock(r));
+  const warnings = [
+    ...r.warnings,
+    ...r.outcomes.flatMap((o) => o.warnings.map((w) => `${o.name}: ${w}`)),
+    ...(r.density?.warnings ?? []).map((w) => `density: ${w}`),
+    ...(r.balance ?? []).flatMap((b) => b.warnings.map((w) => `${b.name}: ${w}`)),
+  ];
   if (warnings.length > 0) {
     out.push('');
     out.push('Warnings');

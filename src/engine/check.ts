@@ -22,6 +22,7 @@ import { KernelName } from './kernels';
 import { compact, completeRows } from './listwise';
 import { VarianceName } from './residuals';
 import { applyWeights, boundaryWindow } from './boundaryWindow';
+import { balanceSection, BalanceRow, binnedSeries, BinnedSeries, densitySection, DensitySection } from './designChecks';
 import { bandwidthMse } from './bandwidthMse';
 import { complierMeans } from './complierDistributions';
 import { holmAdjust } from './holm';
@@ -65,6 +66,13 @@ export interface CheckOptions {
   multiplier?: MultiplierName;
   /** Multiples of the test bandwidth for the sensitivity table; [] for the test bandwidth alone. */
   sensitivity?: number[];
+  /** McCrary's bin width and bandwidth (rules of thumb when absent). */
+  densityBin?: number;
+  densityBandwidth?: number;
+  /** Units with |score − cutoff| < donut are left out of every estimate and test. */
+  donut?: number;
+  /** Binned means for plots (take-up, each outcome, each covariate). */
+  bins?: boolean;
 }
 
 export const DEFAULT_SENSITIVITY = [0.5, 0.75, 1, 1.5, 2];
@@ -118,6 +126,10 @@ export interface CheckResult {
   /** The bandwidth of the validity test: mse of take-up × n^(−1/20), or the typed one. */
   test_bandwidth: { value: number; rule: 'undersmoothed mse' | 'typed' };
   outcomes: OutcomeResult[];
+  density?: DensitySection;
+  balance?: BalanceRow[];
+  bins?: BinnedSeries[];
+  donut?: { radius: number; excluded: number };
   warnings: string[];
 }
 
@@ -144,9 +156,9 @@ export interface Prepared {
 }
 
 /** Listwise rows for score, treated, an optional outcome, the cluster (and the within cells if asked). */
-export function prepare(input: CheckInput, outcome?: DataColumn, withCells = false): Prepared & { cells?: Int32Array } {
+export function prepare(input: CheckInput, outcome?: DataColumn, withCells = false, donut?: Uint8Array): Prepared & { cells?: Int32Array } {
   const n = input.score.values.length;
-  const masks = [input.score.missing, input.treated.missing, outcome?.missing, input.cluster?.missing];
+  const masks = [input.score.missing, input.treated.missing, outcome?.missing, input.cluster?.missing, donut];
   if (withCells) masks.push(input.within?.missing);
   const { rows, dropped } = completeRows(n, masks);
   if (rows.length === 0) throw new CutlineError('no row has every column the check needs; nothing to estimate');
@@ -164,6 +176,11 @@ export function prepare(input: CheckInput, outcome?: DataColumn, withCells = fal
 /** The column itself when no row is dropped (the engine never writes to it), else a compact copy. */
 function keep<T extends Float64Array | Int32Array>(values: T, rows: Int32Array, dropped: number): T {
   return dropped === 0 ? values : compact(values, rows);
+}
+
+function requireVaries(v: Float64Array, what: string, why: string): void {
+  for (let i = 1; i < v.length; i++) if (v[i] !== v[0]) return;
+  throw new CutlineError(`${what} is constant (every used row is ${v[0]}): ${why}`);
 }
 
 function checkSides(score: Float64Array, cutoff: number): void {
@@ -184,8 +201,14 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   if (input.outcomes.length === 0) throw new CutlineError('--outcome: at least one outcome column is needed');
   if (variance === 'cluster' && !input.cluster) throw new CutlineError('--variance cluster needs --cluster COL');
   const n = input.score.values.length;
-  const first = prepare(input, input.outcomes[0]);
+  const donut = donutMask(input.score, cutoff, options.donut);
+  const first = prepare(input, input.outcomes[0], false, donut?.mask);
   checkSides(first.score, cutoff);
+  requireVaries(first.treated, `--treated: column ${JSON.stringify(input.treated.name)}`, 'take-up cannot jump');
+  input.outcomes.forEach((col, j) => {
+    const p = j === 0 ? first : prepare(input, col, false, donut?.mask);
+    requireVaries(p.outcome!, `--outcome: column ${JSON.stringify(col.name)}`, 'there is no jump to estimate or test');
+  });
   const bw = chooseBandwidth(first.score, first.outcome!, cutoff, {
     rule: options.rule,
     kernel,
@@ -196,7 +219,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   const warnings: string[] = [];
 
   // Take-up on its own rows; its sign decides the eligible side.
-  const tk = prepare(input);
+  const tk = prepare(input, undefined, false, donut?.mask);
   checkSides(tk.score, cutoff);
   const tkWin = boundaryWindow(tk.score, cutoff, h, kernel);
   // Windows depend on the rows alone: outcomes with the take-up's rows share its window.
@@ -228,7 +251,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   };
 
   const outcomes = input.outcomes.map((col, j) => {
-    const p = j === 0 ? first : prepare(input, col);
+    const p = j === 0 ? first : prepare(input, col, false, donut?.mask);
     const shared = sameRows(p.rows);
     const est = estimatesAtCutoff(p.score, p.treated, p.outcome!, cutoff, {
       ...opts,
@@ -237,7 +260,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
       takeup: shared ? takeupEst.smoothedTakeup : undefined,
     });
     const own = est.warnings.filter((w) => !warnings.includes(w));
-    const vp = input.within ? prepare(input, col, true) : p;
+    const vp = input.within ? prepare(input, col, true, donut?.mask) : p;
     const v = validityTest(vp.score, vp.treated, vp.outcome!, cutoff, { ...vopts, bandwidth: testH, cells: vp.cells });
     const others = validityByBandwidth(vp.score, vp.treated, vp.outcome!, cutoff, testH, multiples, { ...vopts, cells: vp.cells });
     const at1: ValidityAtBandwidth = {
@@ -287,6 +310,35 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     o.validity.pvalue_holm = holm[j];
   });
 
+  // The score's density, on every row with a score (outside the donut).
+  const sc = completeRows(n, [input.score.missing, donut?.mask]);
+  const density = densitySection(keep(input.score.values, sc.rows, sc.dropped), cutoff, {
+    sign,
+    bin: options.densityBin,
+    bandwidth: options.densityBandwidth,
+  });
+  if (!density) warnings.push('neither density test could be computed on these data');
+  const covs = (input.covariates ?? []).map((c) => {
+    const cr = completeRows(n, [input.score.missing, c.missing, variance === 'cluster' ? input.cluster?.missing : undefined, donut?.mask]);
+    return {
+      name: c.name,
+      score: keep(input.score.values, cr.rows, cr.dropped),
+      values: keep(c.values, cr.rows, cr.dropped),
+      clusters: variance === 'cluster' && input.cluster ? keep(input.cluster.codes, cr.rows, cr.dropped) : undefined,
+      dropped: cr.dropped,
+    };
+  });
+  const balance = covs.length > 0 ? balanceSection(covs, cutoff, { rule: options.rule, typed: options.bandwidth, kernel, variance, sign, seed: options.seed }) : undefined;
+  let bins: BinnedSeries[] | undefined;
+  if (options.bins) {
+    bins = [binnedSeries(input.treated.name, tk.score, tk.treated, cutoff, h, kernel)];
+    input.outcomes.forEach((col, j) => {
+      const p = j === 0 ? first : prepare(input, col, false, donut?.mask);
+      bins!.push(binnedSeries(col.name, p.score, p.outcome!, cutoff, h, kernel));
+    });
+    for (const c of covs) bins.push(binnedSeries(c.name, c.score, c.values, cutoff, h, kernel));
+  }
+
   return {
     cutoff,
     eligible: sign > 0 ? 'above' : 'below',
@@ -295,6 +347,33 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     takeup: summary(takeupEst.takeup),
     test_bandwidth: { value: testH, rule: options.bandwidth !== undefined ? 'typed' : 'undersmoothed mse' },
     outcomes,
+    density,
+    balance,
+    bins,
+    donut: donut && { radius: donut.radius, excluded: donut.excluded },
     warnings,
   };
+}
+
+/** Rows inside the donut |score − cutoff| < r (missing scores are left to the listwise rule). */
+function donutMask(score: DataColumn, cutoff: number, r?: number): { mask: Uint8Array; radius: number; excluded: number } | undefined {
+  if (r === undefined) return undefined;
+  if (!(r > 0) || !Number.isFinite(r)) throw new CutlineError(`--donut must be a positive number, got ${r}`);
+  const mask = new Uint8Array(score.values.length);
+  let excluded = 0;
+  let below = 0;
+  let above = 0;
+  for (let i = 0; i < mask.length; i++) {
+    if (score.missing?.[i]) continue;
+    const x = score.values[i] - cutoff;
+    if (Math.abs(x) < r) {
+      mask[i] = 1;
+      excluded++;
+    } else if (x < 0) below++;
+    else above++;
+  }
+  if (below === 0 || above === 0) {
+    throw new CutlineError(`--donut ${r} leaves no unit ${below === 0 ? 'below' : 'above'} the cutoff`);
+  }
+  return { mask, radius: r, excluded };
 }

@@ -10,8 +10,10 @@
  * at the support points next to the cutoff.
  *
  * Cutline's rule (its own choice): a side is "mostly mass points" when its
- * window holds fewer than 10 distinct scores, or when on average at least two
- * units share each distinct score (distinct ≤ units/2).
+ * window holds fewer than 10 distinct scores, or when on average more than 20
+ * units share each distinct score (heaping). A score recorded to one decimal
+ * over a window of many tenths is not flagged: the density tests' bins and
+ * bandwidths span many support points there.
  */
 
 export interface DistinctScores {
@@ -22,6 +24,8 @@ export interface DistinctScores {
 }
 
 export const FEW_DISTINCT = 10;
+/** More units than this per distinct score value, on average, is heaping. */
+export const UNITS_PER_VALUE = 20;
 
 /** Number of distinct values in an ascending array. */
 export function countDistinctSorted(sorted: ArrayLike<number>): number {
@@ -62,7 +66,7 @@ export function windowDistinctScores(
 
 /** True when a side's window is mostly mass points (see the rule above). */
 export function mostlyMassPoints(distinct: number, units: number): boolean {
-  return units > 0 && (distinct < FEW_DISTINCT || distinct <= units / 2);
+  return units > 0 && (distinct < FEW_DISTINCT || distinct * UNITS_PER_VALUE < units);
 }
 
 /** The caveat for a density test or plot, or null when the score looks continuous. */
@@ -72,8 +76,8 @@ export function distinctScoreWarning(d: DistinctScores, what = 'the density test
   if (mostlyMassPoints(d.above, d.unitsAbove)) bad.push(`${d.above} distinct values among ${d.unitsAbove} units above the cutoff`);
   if (bad.length === 0) return null;
   return (
-    `the score takes few distinct values near the cutoff (${bad.join('; ')}): ${what} assume a continuously ` +
-    `distributed score (McCrary 2008; Cattaneo, Jansson & Ma 2020), so with a discrete or heaped score the ` +
+    `the score takes few distinct values near the cutoff (${bad.join('; ')}): a continuously distributed score ` +
+    `is assumed by ${what} (McCrary 2008; Cattaneo, Jansson & Ma 2020), so with a discrete or heaped score the ` +
     `result is not reliable either way — compare the counts at the score values next to the cutoff instead`
   );
 }
