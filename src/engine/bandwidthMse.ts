@@ -24,7 +24,7 @@
  */
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, pilotVariance, pilotWindow, thirdDerivative } from './bandwidthPilots';
-import { boundaryWindow, sideFit, SideFit, sortedOrder } from './boundaryWindow';
+import { boundaryWindow, curvatureWeights, SortedSide, sortedOrder } from './boundaryWindow';
 import { CutlineError } from './errors';
 import { varianceOf } from './influence';
 import { KernelName } from './kernels';
@@ -46,8 +46,8 @@ function sideRange(score: ArrayLike<number>, cutoff: number, above: boolean): nu
 }
 
 /** 2 × x² coefficient and its influence terms on one side. */
-function secondDerivative(side: SideFit, values: ArrayLike<number>, sign: number): { m2: number; psi: Float64Array } {
-  const q2 = side.coef2![2];
+function secondDerivative(side: SortedSide & { q2: Float64Array }, values: ArrayLike<number>, sign: number): { m2: number; psi: Float64Array } {
+  const q2 = side.q2;
   const e = nnResiduals(side, values);
   const psi = new Float64Array(q2.length);
   let m2 = 0;
@@ -90,8 +90,8 @@ export function bandwidthMse(
   };
   const bBelow = pilotB(false);
   const bAbove = pilotB(true);
-  const above = sideFit(score, cutoff, bAbove, kernel, true, true);
-  const below = sideFit(score, cutoff, bBelow, kernel, false, true);
+  const above = curvatureWeights(score, cutoff, bAbove, kernel, true);
+  const below = curvatureWeights(score, cutoff, bBelow, kernel, false);
   const ya = secondDerivative(above, values, 1);
   const yb = secondDerivative(below, values, -1);
   let delta = ya.m2 - yb.m2;

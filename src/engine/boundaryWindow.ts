@@ -50,7 +50,7 @@ function sideName(above: boolean): string {
 }
 
 /** Coefficient weights of the degree-p fit, W_j(i) in units of x (not x/h). */
-function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, above: boolean): Float64Array[] {
+function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, above: boolean, only?: number): Float64Array[] {
   const n = x.length;
   const q = p + 1;
   const m: number[][] = Array.from({ length: q }, () => new Array<number>(q).fill(0));
@@ -72,8 +72,9 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
         `its scores take too few distinct values — widen the bandwidth`,
     );
   }
-  const out = Array.from({ length: q }, () => new Float64Array(n));
+  const out = Array.from({ length: q }, (_, j) => new Float64Array(only === undefined || only === j ? n : 0));
   for (let j = 0; j < q; j++) {
+    if (only !== undefined && j !== only) continue;
     // Row j of Γ⁻¹ divided by h^j, as a polynomial in u evaluated by Horner's rule.
     const c = inv[j].map((v) => v / Math.pow(h, j));
     const o = out[j];
@@ -195,8 +196,75 @@ function fitPositions(
   return fit;
 }
 
+/** The units and positions of one side's window, sorted by score: all a nearest-neighbour pass needs. */
+export interface SortedSide {
+  index: Int32Array;
+  x: Float64Array;
+}
+
+/**
+ * Only the x² coefficient weights of one side's local quadratic fit (for the
+ * curvature pilots of the bandwidth rules, which need nothing else), not cached.
+ */
+export function curvatureWeights(
+  score: ArrayLike<number>,
+  cutoff: number,
+  b: number,
+  kernel: KernelName,
+  above: boolean,
+): SortedSide & { q2: Float64Array } {
+  checkBandwidth(b);
+  const pos = windowPositions(score, cutoff, b);
+  const index = above ? pos.above : pos.below;
+  const n = index.length;
+  const x = new Float64Array(n);
+  const k = new Float64Array(n);
+  let distinct = 0;
+  for (let t = 0; t < n; t++) {
+    x[t] = score[index[t]] - cutoff;
+    k[t] = kernelWeight(kernel, x[t] / b);
+    if (t === 0 || x[t] !== x[t - 1]) distinct++;
+  }
+  if (n < 4 || distinct < 3) {
+    throw new CutlineError(
+      `the curvature pilot (bandwidth ${fmt(b)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) for a quadratic fit — type a bandwidth instead`,
+    );
+  }
+  return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2] };
+}
+
 function checkBandwidth(h: number): void {
   if (!(h > 0) || !Number.isFinite(h)) throw new CutlineError(`bandwidth must be a positive number, got ${h}`);
+}
+
+// A check asks for the same side fit several times (bandwidth pilots shared by
+// two rules, the estimates and the complier distributions at one bandwidth):
+// the last few fits of each score array are kept. A fit with the quadratic
+// serves a request without it.
+const FITS_KEPT = 6;
+const fitCache = new WeakMap<object, Map<string, SideFit>>();
+
+function cachedFit(
+  score: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  above: boolean,
+  withQuadratic: boolean,
+  positions: () => Int32Array,
+): SideFit {
+  let cache = fitCache.get(score as object);
+  if (!cache) {
+    cache = new Map();
+    fitCache.set(score as object, cache);
+  }
+  const key = (q: boolean): string => `${cutoff}|${h}|${kernel}|${above}|${q}`;
+  const hit = cache.get(key(true)) ?? (withQuadratic ? undefined : cache.get(key(false)));
+  if (hit) return hit;
+  const fit = fitPositions(score, cutoff, h, kernel, above, withQuadratic, positions());
+  cache.set(key(withQuadratic), fit);
+  if (cache.size > FITS_KEPT) cache.delete(cache.keys().next().value as string);
+  return fit;
 }
 
 /**
@@ -213,8 +281,12 @@ export function sideFit(
   rows?: Int32Array,
 ): SideFit {
   checkBandwidth(h);
-  const pos = windowPositions(score, cutoff, h, rows);
-  return fitPositions(score, cutoff, h, kernel, above, withQuadratic, above ? pos.above : pos.below);
+  const pos = (): Int32Array => {
+    const p = windowPositions(score, cutoff, h, rows);
+    return above ? p.above : p.below;
+  };
+  if (rows) return fitPositions(score, cutoff, h, kernel, above, withQuadratic, pos());
+  return cachedFit(score, cutoff, h, kernel, above, withQuadratic, pos);
 }
 
 /** Both sides of the window at bandwidth h. */
@@ -227,13 +299,24 @@ export function boundaryWindow(
 ): Window {
   const quad = options.quadratic ?? true;
   checkBandwidth(h);
-  const pos = windowPositions(score, cutoff, h, options.rows);
+  if (options.rows) {
+    const pos = windowPositions(score, cutoff, h, options.rows);
+    return {
+      cutoff,
+      bandwidth: h,
+      kernel,
+      above: fitPositions(score, cutoff, h, kernel, true, quad, pos.above),
+      below: fitPositions(score, cutoff, h, kernel, false, quad, pos.below),
+    };
+  }
+  let pos: { above: Int32Array; below: Int32Array } | undefined;
+  const get = (): { above: Int32Array; below: Int32Array } => (pos ??= windowPositions(score, cutoff, h));
   return {
     cutoff,
     bandwidth: h,
     kernel,
-    above: fitPositions(score, cutoff, h, kernel, true, quad, pos.above),
-    below: fitPositions(score, cutoff, h, kernel, false, quad, pos.below),
+    above: cachedFit(score, cutoff, h, kernel, true, quad, () => get().above),
+    below: cachedFit(score, cutoff, h, kernel, false, quad, () => get().below),
   };
 }
 

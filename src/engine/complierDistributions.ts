@@ -23,7 +23,7 @@
  * @example
  *   complierCdf(score, treated, bill, 60, [400, 500, 600], 1, { bandwidth: 8, kernel: 'triangular' }).cdf
  */
-import { SideFit, Window, boundaryWindow } from './boundaryWindow';
+import { SideFit, Window, applyWeights, boundaryWindow } from './boundaryWindow';
 import { CutlineError } from './errors';
 import { KernelName } from './kernels';
 
@@ -60,7 +60,7 @@ function prepare(
       if (treated[i] !== 0 && treated[i] !== 1) throw new CutlineError(`treated must be 0 or 1, got ${treated[i]} at row ${i + 1}`);
       if (!Number.isFinite(outcome[i])) throw new CutlineError(`outcome is not a finite number at row ${i + 1}`);
     }
-  const pi = intercept(plus, (i) => treated[i]) - intercept(minus, (i) => treated[i]);
+  const pi = applyWeights(plus.coef1[0], plus.index, treated) - applyWeights(minus.coef1[0], minus.index, treated);
   if (!(pi > 0))
     throw new CutlineError(
       `the take-up jump is ${Number(pi.toPrecision(4))} at bandwidth ${opts.bandwidth}: take-up does not rise at the cutoff, ` +
@@ -227,11 +227,23 @@ export function complierMeans(
   opts: ComplierOptions,
 ): { mean_treated: number; mean_untreated: number; takeup: number } {
   const p = prepare(score, treated, outcome, cutoff, opts);
-  const yd = (i: number): number => (treated[i] === 1 ? outcome[i] : 0);
-  const yu = (i: number): number => (treated[i] === 0 ? outcome[i] : 0);
+  // Intercepts of Y·1{D=1} and Y·1{D=0} on each side, in one pass per side.
+  const sums = (side: SideFit): [number, number] => {
+    const w = side.coef1[0];
+    let treatedSum = 0;
+    let untreatedSum = 0;
+    for (let t = 0; t < w.length; t++) {
+      const i = side.index[t];
+      if (treated[i] === 1) treatedSum += w[t] * outcome[i];
+      else untreatedSum += w[t] * outcome[i];
+    }
+    return [treatedSum, untreatedSum];
+  };
+  const [plusTreated, plusUntreated] = sums(p.plus);
+  const [minusTreated, minusUntreated] = sums(p.minus);
   return {
-    mean_treated: (intercept(p.plus, yd) - intercept(p.minus, yd)) / p.pi,
-    mean_untreated: (intercept(p.minus, yu) - intercept(p.plus, yu)) / p.pi,
+    mean_treated: (plusTreated - minusTreated) / p.pi,
+    mean_untreated: (minusUntreated - plusUntreated) / p.pi,
     takeup: p.pi,
   };
 }

@@ -11,7 +11,7 @@
  *   supplement). Units are sorted by score; a neighbour tie in distance goes
  *   to the unit on the left (lower score), Cutline's deterministic choice.
  */
-import { SideFit } from './boundaryWindow';
+import { SideFit, SortedSide } from './boundaryWindow';
 
 export type VarianceName = 'hc0' | 'hc1' | 'nn' | 'cluster';
 export const VARIANCE_NAMES: readonly VarianceName[] = ['hc0', 'hc1', 'nn', 'cluster'];
@@ -42,8 +42,27 @@ export function fitResiduals(side: SideFit, values: ArrayLike<number>, degree: 1
   return e;
 }
 
+// nn residuals depend on the side and the column only; a check asks for the
+// same ones several times (pilots, estimates). Callers never write to them.
+const nnCache = new WeakMap<SortedSide, WeakMap<object, Float64Array>>();
+
 /** Nearest-neighbour residuals (J = 3) of V on one side. */
-export function nnResiduals(side: SideFit, values: ArrayLike<number>, J = NN_NEIGHBOURS): Float64Array {
+export function nnResiduals(side: SortedSide, values: ArrayLike<number>, J = NN_NEIGHBOURS): Float64Array {
+  if (J !== NN_NEIGHBOURS) return computeNn(side, values, J);
+  let bySide = nnCache.get(side);
+  if (!bySide) {
+    bySide = new WeakMap();
+    nnCache.set(side, bySide);
+  }
+  let e = bySide.get(values as object);
+  if (!e) {
+    e = computeNn(side, values, J);
+    bySide.set(values as object, e);
+  }
+  return e;
+}
+
+function computeNn(side: SortedSide, values: ArrayLike<number>, J: number): Float64Array {
   const { index, x } = side;
   const n = index.length;
   const v = new Float64Array(n);

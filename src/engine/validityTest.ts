@@ -153,8 +153,9 @@ function momentsFor(
       `${pre}no treated unit ${where} the cutoff inside the window (bandwidth ${fmt(o.bandwidth)}): take-up cannot rise there; ` +
         `check the treated column and the eligibility side`,
     );
-  const ys: number[] = [];
-  for (const side of [win.above, win.below]) for (let t = 0; t < side.index.length; t++) ys.push(outcome[side.index[t]]);
+  const ys = new Float64Array(win.above.index.length + win.below.index.length);
+  let u = 0;
+  for (const side of [win.above, win.below]) for (let t = 0; t < side.index.length; t++) ys[u++] = outcome[side.index[t]];
   const cls = intervalClass(ys, r.grid);
   if (cls.distinct < 2)
     throw new CutlineError(

@@ -5,6 +5,7 @@
  */
 import { CutlineError } from '../engine/errors';
 import { cellLabel, cellNumber, showCell } from './cells';
+import { MISSING, SLOW } from './fastNumber';
 import { Table } from './table';
 
 export interface NumericColumn {
@@ -40,7 +41,19 @@ export function numericColumn(table: Table, name: string, role: ColumnRole): Num
   const values = new Float64Array(n);
   const missing = new Uint8Array(n);
   const binary = role === 'treated';
+  const fast = table.fastNumber;
   for (let r = 0; r < n; r++) {
+    if (fast) {
+      const f = fast(r, c);
+      if (f === MISSING) {
+        missing[r] = 1;
+        continue;
+      }
+      if (f !== SLOW && (!binary || f === 0 || f === 1)) {
+        values[r] = f;
+        continue;
+      }
+    }
     const cell = table.get(r, c);
     const v = cellNumber(cell);
     if (v === null) {

@@ -14,6 +14,7 @@
  */
 import Papa from 'papaparse';
 import { CutlineError } from '../engine/errors';
+import { fastNumber } from './fastNumber';
 import { Table } from './table';
 
 function detectDelimiter(headerLine: string): string {
@@ -110,6 +111,10 @@ function scanPlain(text: string, delim: string, source: string): Table {
     get: (r, c) => {
       const base = r * (w + 1);
       return text.slice(offsets[base + c], offsets[base + c + 1] - 1);
+    },
+    fastNumber: (r, c) => {
+      const base = r * (w + 1);
+      return fastNumber(text, offsets[base + c], offsets[base + c + 1] - 1);
     },
   };
 }

@@ -1,0 +1,77 @@
+/**
+ * Decimal text to a double straight from character codes, for the plain CSV
+ * path. Exact by Clinger's fast path (Clinger 1990, "How to read floating
+ * point numbers accurately", PLDI): with at most 15 significant digits the
+ * mantissa m is an exact double, and so is 10^k for k ≤ 22, so m·10^k or
+ * m/10^k is one correctly rounded operation — the same double as Number().
+ * Anything else (more digits, larger exponents, words, markers) returns
+ * SLOW and the caller uses the general cell rules of cells.ts.
+ */
+export const SLOW = Symbol('slow');
+export const MISSING = Symbol('missing');
+
+const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+
+export function fastNumber(text: string, start: number, end: number): number | typeof SLOW | typeof MISSING {
+  while (start < end && (text.charCodeAt(start) === 32 || text.charCodeAt(start) === 9)) start++;
+  while (end > start && (text.charCodeAt(end - 1) === 32 || text.charCodeAt(end - 1) === 9 || text.charCodeAt(end - 1) === 13)) end--;
+  if (start === end) return MISSING;
+  let i = start;
+  let neg = false;
+  let c = text.charCodeAt(i);
+  if (c === 45 || c === 43) {
+    neg = c === 45;
+    i++;
+  }
+  let m = 0;
+  let digits = 0;
+  let significant = 0;
+  let scale = 0;
+  let dot = false;
+  for (; i < end; i++) {
+    c = text.charCodeAt(i);
+    if (c >= 48 && c <= 57) {
+      digits++;
+      if (m === 0 && c === 48) {
+        if (dot) scale--;
+        continue;
+      }
+      if (++significant > 15) return SLOW;
+      m = m * 10 + (c - 48);
+      if (dot) scale--;
+    } else if (c === 46 && !dot) {
+      dot = true;
+    } else break;
+  }
+  if (digits === 0) return SLOW;
+  if (i < end) {
+    if ((c | 32) !== 101) return SLOW;
+    i++;
+    let eneg = false;
+    c = text.charCodeAt(i);
+    if (c === 45 || c === 43) {
+      eneg = c === 45;
+      i++;
+    }
+    let e = 0;
+    let edigits = 0;
+    for (; i < end; i++) {
+      c = text.charCodeAt(i);
+      if (c < 48 || c > 57) return SLOW;
+      e = e * 10 + (c - 48);
+      if (++edigits > 4) return SLOW;
+    }
+    if (edigits === 0) return SLOW;
+    scale += eneg ? -e : e;
+  }
+  if (m === 0) return neg ? -0 : 0;
+  let v: number;
+  if (scale >= 0) {
+    if (scale > 22) return SLOW;
+    v = m * POW10[scale];
+  } else {
+    if (scale < -22) return SLOW;
+    v = m / POW10[-scale];
+  }
+  return neg ? -v : v;
+}
