@@ -4,7 +4,7 @@
  * cells give their cached result; rich text gives its plain text; dates give
  * their serial-free ISO text (and so are rejected as numbers, by name).
  */
-import ExcelJS from 'exceljs';
+import type ExcelJS from 'exceljs';
 import { CutlineError } from '../engine/errors';
 import { Cell, Table, tableFromRows } from './table';
 
@@ -22,7 +22,10 @@ function plain(v: ExcelJS.CellValue): Cell {
 }
 
 export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string, source = 'the workbook'): Promise<Table> {
-  const wb = new ExcelJS.Workbook();
+  // Loaded on demand: exceljs takes about 170 ms to load, which a CSV check need not pay.
+  const mod = (await import('exceljs')) as unknown as { Workbook?: typeof ExcelJS.Workbook; default?: { Workbook: typeof ExcelJS.Workbook } };
+  const Workbook = mod.Workbook ?? mod.default!.Workbook;
+  const wb = new Workbook();
   try {
     await wb.xlsx.load(bytes as ArrayBuffer);
   } catch {
