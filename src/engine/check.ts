@@ -24,7 +24,8 @@ import { VarianceName } from './residuals';
 import { applyWeights, boundaryWindow } from './boundaryWindow';
 import { balanceSection, BalanceRow, binnedSeries, BinnedSeries, densitySection, DensitySection } from './designChecks';
 import { bandwidthMse } from './bandwidthMse';
-import { complierMeans } from './complierDistributions';
+import { complierCdf, complierDensity, complierMeans } from './complierDistributions';
+import { complierGrid } from './complierGrid';
 import { holmAdjust } from './holm';
 import { MultiplierName } from './validityBootstrap';
 import { validityByBandwidth, validityTest, ValidityAtBandwidth, verdictWarnings } from './validityTest';
@@ -94,6 +95,24 @@ export interface ValiditySummary {
   within?: string;
 }
 
+export interface ComplierSummary {
+  mean_treated: number;
+  mean_untreated: number;
+  /** Outcome values where the implied distributions are shown (complierGrid.ts). */
+  at: number[];
+  cdf_treated: number[];
+  cdf_untreated: number[];
+  /** Stretches where an implied CDF falls: the picture of a violation. */
+  decreasing_treated: Array<{ from: number; to: number }>;
+  decreasing_untreated: Array<{ from: number; to: number }>;
+  /** Kernel densities (only when the plot data are asked for). */
+  density_treated?: number[];
+  density_untreated?: number[];
+  negative_treated?: Array<{ from: number; to: number }>;
+  negative_untreated?: Array<{ from: number; to: number }>;
+  density_bandwidth?: number;
+}
+
 export interface EstimateSummary {
   estimate: number;
   se: number;
@@ -113,7 +132,7 @@ export interface OutcomeResult {
   jump: EstimateSummary;
   effect: EstimateSummary;
   validity: ValiditySummary;
-  compliers?: { mean_treated: number; mean_untreated: number };
+  compliers?: ComplierSummary;
   warnings: string[];
 }
 
@@ -176,6 +195,40 @@ export function prepare(input: CheckInput, outcome?: DataColumn, withCells = fal
 /** The column itself when no row is dropped (the engine never writes to it), else a compact copy. */
 function keep<T extends Float64Array | Int32Array>(values: T, rows: Int32Array, dropped: number): T {
   return dropped === 0 ? values : compact(values, rows);
+}
+
+const fmt = (v: number): string => Number(v.toPrecision(4)).toString();
+
+function complierSummary(
+  p: Prepared,
+  cutoff: number,
+  o: { bandwidth: number; kernel: KernelName; sign: 1 | -1 },
+  densities: boolean,
+): ComplierSummary {
+  const y = p.outcome!;
+  const m = complierMeans(p.score, p.treated, y, cutoff, o);
+  const at = complierGrid(p.score, y, cutoff, o.bandwidth, o.kernel);
+  const c1 = complierCdf(p.score, p.treated, y, cutoff, at, 1, o);
+  const c0 = complierCdf(p.score, p.treated, y, cutoff, at, 0, o);
+  const out: ComplierSummary = {
+    mean_treated: m.mean_treated,
+    mean_untreated: m.mean_untreated,
+    at,
+    cdf_treated: c1.cdf,
+    cdf_untreated: c0.cdf,
+    decreasing_treated: c1.decreasing,
+    decreasing_untreated: c0.decreasing,
+  };
+  if (densities) {
+    const d1 = complierDensity(p.score, p.treated, y, cutoff, at, 1, o);
+    const d0 = complierDensity(p.score, p.treated, y, cutoff, at, 0, o);
+    out.density_treated = d1.density;
+    out.density_untreated = d0.density;
+    out.negative_treated = d1.negative;
+    out.negative_untreated = d0.negative;
+    out.density_bandwidth = d1.densityBandwidth;
+  }
+  return out;
 }
 
 function requireVaries(v: Float64Array, what: string, why: string): void {
@@ -275,8 +328,15 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     for (const w of [...v.warnings, ...verdictWarnings(byBandwidth)]) if (!own.includes(w) && !warnings.includes(w)) own.push(w);
     let compliers: OutcomeResult['compliers'];
     if (est.takeup.estimate > 0) {
-      const m = complierMeans(p.score, p.treated, p.outcome!, cutoff, { bandwidth: h, kernel, sign });
-      compliers = { mean_treated: m.mean_treated, mean_untreated: m.mean_untreated };
+      compliers = complierSummary(p, cutoff, { bandwidth: h, kernel, sign }, options.bins === true);
+      for (const [arm, list] of [['treated', compliers.decreasing_treated], ['untreated', compliers.decreasing_untreated]] as const) {
+        for (const st of list) {
+          own.push(
+            `the implied distribution of ${arm} compliers' outcomes falls between ${fmt(st.from)} and ${fmt(st.to)}: ` +
+              'a probability cannot fall, so this is the picture of a violation of the design (or of noise; see the validity test)',
+          );
+        }
+      }
     }
     const result: OutcomeResult = {
       name: col.name,

@@ -120,21 +120,31 @@ export function complierCdf(
   const p = prepare(score, treated, outcome, cutoff, opts);
   const order = at.map((_, j) => j).sort((a, b) => at[a] - at[b]);
   const sortedAt = order.map((j) => at[j]);
-  // Signed weights of the arm's units: F = Σ_{Y_i ≤ y} c_i, c = ±ω/π.
-  const units: Array<[number, number]> = [];
+  // Signed weights of the arm's units: F(y) = Σ_{Y_i ≤ y} c_i, c = ±ω/π. Each
+  // unit adds its weight at the first sorted `at` value ≥ Y_i (binary search),
+  // then a running sum gives F at every point: O(N log |at|), no sort of the window.
+  const bucket = new Float64Array(sortedAt.length + 1);
   for (const [side, s] of [[p.plus, 1], [p.minus, -1]] as const) {
     const w = side.coef1[0];
     const c = (arm === 1 ? s : -s) / p.pi;
-    side.index.forEach((i, t) => {
-      if (treated[i] === arm) units.push([outcome[i], c * w[t]]);
-    });
+    for (let t = 0; t < w.length; t++) {
+      const i = side.index[t];
+      if (treated[i] !== arm) continue;
+      const y = outcome[i];
+      let lo = 0;
+      let hi = sortedAt.length;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        if (sortedAt[mid] < y) lo = mid + 1;
+        else hi = mid;
+      }
+      bucket[lo] += c * w[t];
+    }
   }
-  units.sort((a, b) => a[0] - b[0]);
   const sortedCdf: number[] = [];
-  let u = 0;
   let acc = 0;
-  for (const y of sortedAt) {
-    while (u < units.length && units[u][0] <= y) acc += units[u++][1];
+  for (let j = 0; j < sortedAt.length; j++) {
+    acc += bucket[j];
     sortedCdf.push(acc);
   }
   const cdf = new Array<number>(at.length);
