@@ -1,7 +1,9 @@
 /**
- * Speed of `cutline check` (issue 2: estimates on 1,000,000 rows in under 2 s
- * end to end, linear in the rows): wall time of the real command on seeded
- * CSV files of growing size, and the in-process split into phases.
+ * Speed of `cutline check`: wall time and peak memory of the real command on
+ * seeded CSV files of growing size (linear in the rows?), and the in-process
+ * split into phases at 1,000,000 rows. Targets: issue 2, the estimates on 1M
+ * rows under 2 s end to end; issue 3, the whole check with --sensitivity off
+ * (999 draws, 930 intervals) at most 1 s and under 500 MB.
  * Run: node bin/run-ts.cjs bench/checkBench.ts
  */
 import { spawnSync } from 'child_process';
@@ -10,7 +12,9 @@ import * as path from 'path';
 import { runCheck } from '../src/engine/check';
 import { numericColumn } from '../src/input/columns';
 import { parseCsv } from '../src/input/csv';
-import { bigCsvPath } from './bigData';
+import { bigCsvPath, Shape } from './bigData';
+import { bandwidthMse } from '../src/engine/bandwidthMse';
+import { estimatesAtCutoff } from '../src/engine/estimatesAtCutoff';
 
 const root = path.resolve(__dirname, '..', '..', '..');
 const cli = fs.existsSync(path.join(process.cwd(), 'bin/cutline.cjs')) ? path.join(process.cwd(), 'bin/cutline.cjs') : path.join(root, 'bin/cutline.cjs');
@@ -32,14 +36,18 @@ function best<T extends { seconds: number }>(k: number, f: () => T): T {
   return b!;
 }
 
-export function checkBench(extra: string[] = ['--sensitivity', 'off'], label = 'estimates + checks'): void {
-  process.stdout.write(`\ncutline check end to end (${label}; best of 3; wall seconds, peak memory)\n`);
+export function checkBench(shape: Shape, extra: string[], label: string): void {
+  process.stdout.write(`\ncutline check end to end, ${shape} design (${label}; best of 3; wall seconds, peak memory)\n`);
   for (const n of [250_000, 500_000, 1_000_000]) {
-    const file = bigCsvPath(n);
+    const file = bigCsvPath(n, 7, shape);
     const r = best(3, () => wall(file, extra));
     process.stdout.write(`  ${String(n).padStart(9)} rows: ${r.seconds.toFixed(2)} s, ${r.peakMb.toFixed(0)} MB, ${((r.seconds / n) * 1e6).toFixed(2)} µs/row\n`);
   }
-  const file = bigCsvPath(1_000_000);
+}
+
+/** In-process phases at 1M rows: reading, and the estimates (bandwidth + take-up + effect) alone. */
+export function phases(shape: Shape): void {
+  const file = bigCsvPath(1_000_000, 7, shape);
   let t = performance.now();
   const text = fs.readFileSync(file, 'utf8');
   const tRead = performance.now() - t;
@@ -47,19 +55,31 @@ export function checkBench(extra: string[] = ['--sensitivity', 'off'], label = '
   const table = parseCsv(text);
   const tParse = performance.now() - t;
   t = performance.now();
-  const input = {
-    score: numericColumn(table, 'score', 'score'),
-    treated: numericColumn(table, 'treated', 'treated'),
-    outcomes: [numericColumn(table, 'outcome', 'outcome')],
-  };
+  const score = numericColumn(table, 'score', 'score').values;
+  const treated = numericColumn(table, 'treated', 'treated').values;
+  const outcome = numericColumn(table, 'outcome', 'outcome').values;
   const tCols = performance.now() - t;
   t = performance.now();
-  runCheck(input, { cutoff: 0 });
+  const h = bandwidthMse(score, outcome, 0, 'triangular', treated).bandwidth;
+  const tBw = performance.now() - t;
+  t = performance.now();
+  const e = estimatesAtCutoff(score, treated, treated, 0, { bandwidth: h, kernel: 'triangular', variance: 'nn', sign: 1 });
+  estimatesAtCutoff(score, treated, outcome, 0, { bandwidth: h, kernel: 'triangular', variance: 'nn', sign: 1, window: e.window, takeup: e.smoothedTakeup });
+  const tEst = performance.now() - t;
+  t = performance.now();
+  runCheck({ score: { name: 'score', values: Float64Array.from(score) }, treated: { name: 'treated', values: treated }, outcomes: [{ name: 'outcome', values: outcome }] }, { cutoff: 0, sensitivity: [] });
   const tCheck = performance.now() - t;
   process.stdout.write(
-    `  phases at 1,000,000 rows (in process): read ${tRead.toFixed(0)} ms, scan ${tParse.toFixed(0)} ms, ` +
-      `columns ${tCols.toFixed(0)} ms, runCheck ${tCheck.toFixed(0)} ms\n`,
+    `  phases at 1,000,000 rows, ${shape} (in process, first run): read ${tRead.toFixed(0)} ms, scan ${tParse.toFixed(0)} ms, ` +
+      `3 columns ${tCols.toFixed(0)} ms, mse bandwidth ${tBw.toFixed(0)} ms, estimates ${tEst.toFixed(0)} ms; ` +
+      `whole runCheck (--sensitivity off) ${tCheck.toFixed(0)} ms\n`,
   );
 }
 
-if (process.argv[1] && process.argv[1].endsWith('checkBench.ts')) checkBench([], 'estimates');
+if (process.argv[1] && process.argv[1].endsWith('checkBench.ts')) {
+  for (const shape of ['curved', 'linear'] as const) {
+    checkBench(shape, ['--sensitivity', 'off'], 'all checks, --sensitivity off');
+    checkBench(shape, [], 'all checks, default sensitivity: 5 bandwidths');
+    phases(shape);
+  }
+}
