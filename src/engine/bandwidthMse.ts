@@ -28,7 +28,7 @@ import { boundaryWindow, curvatureWeights, SortedSide, sortedOrder } from './bou
 import { CutlineError } from './errors';
 import { varianceOf } from './influence';
 import { KernelName } from './kernels';
-import { nnResiduals } from './residuals';
+import { gathered, nnResiduals } from './residuals';
 import { ratioPsi, smoothJump } from './smoothJump';
 
 export interface MseBandwidth {
@@ -49,10 +49,11 @@ function sideRange(score: ArrayLike<number>, cutoff: number, above: boolean): nu
 function secondDerivative(side: SortedSide & { q2: Float64Array }, values: ArrayLike<number>, sign: number): { m2: number; psi: Float64Array } {
   const q2 = side.q2;
   const e = nnResiduals(side, values);
+  const v = gathered(side, values);
   const psi = new Float64Array(q2.length);
   let m2 = 0;
   for (let t = 0; t < q2.length; t++) {
-    m2 += 2 * q2[t] * values[side.index[t]];
+    m2 += 2 * q2[t] * v[t];
     psi[t] = sign * 2 * q2[t] * e[t];
   }
   return { m2, psi };

@@ -25,35 +25,62 @@ export interface Pilots {
   near: { below: Int32Array; above: Int32Array };
 }
 
+// Pilots depend on the scores and the cutoff only; both bandwidth rules of a
+// check (the estimates' and the validity test's) use the same ones.
+const pilotCache = new WeakMap<object, Map<number, Pilots>>();
+
+/** First position in the sorted order whose score is ≥ v (> v when `after`). */
+function searchSorted(score: ArrayLike<number>, order: Int32Array, v: number, after: boolean): number {
+  let lo = 0;
+  let hi = order.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    const s = score[order[mid]];
+    if (after ? s <= v : s < v) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
 export function pilotWindow(score: ArrayLike<number>, cutoff: number): Pilots {
+  let byCutoff = pilotCache.get(score as object);
+  const hit = byCutoff?.get(cutoff);
+  if (hit) return hit;
   const n = score.length;
   const sd = Math.sqrt(sampleVariance(score));
   if (!(sd > 0)) throw new CutlineError('score is constant: a bandwidth cannot be chosen');
   const h1 = 1.84 * sd * Math.pow(n, -0.2);
-  const below: number[] = [];
-  const above: number[] = [];
-  let nBelow = 0;
-  for (let i = 0; i < n; i++) {
-    const x = score[i] - cutoff;
-    if (x < 0) {
-      nBelow++;
-      if (x >= -h1) below.push(i);
-    } else if (x <= h1) above.push(i);
-  }
+  // Below: c − h₁ ≤ R < c; above: c ≤ R ≤ c + h₁ (x = R − c compared with h₁, as IK state it).
+  const order = sortedOrder(score);
+  const c0 = searchSorted(score, order, cutoff, false);
+  let lo = searchSorted(score, order, cutoff - h1, false);
+  while (lo > 0 && score[order[lo - 1]] - cutoff >= -h1) lo--;
+  while (lo < c0 && !(score[order[lo]] - cutoff >= -h1)) lo++;
+  let hi = searchSorted(score, order, cutoff + h1, true);
+  while (hi < n && score[order[hi]] - cutoff <= h1) hi++;
+  while (hi > c0 && !(score[order[hi - 1]] - cutoff <= h1)) hi--;
+  const below = order.slice(lo, c0);
+  const above = order.slice(c0, hi);
   if (below.length < 2 || above.length < 2) {
     throw new CutlineError(
       `too few units near the cutoff for the pilot bandwidth ${h1.toPrecision(4)} ` +
         `(${below.length} below, ${above.length} above; at least 2 each are needed)`,
     );
   }
-  return {
+  const pilots: Pilots = {
     n,
-    nBelow,
-    nAbove: n - nBelow,
+    nBelow: c0,
+    nAbove: n - c0,
     h1,
     density: (below.length + above.length) / (2 * n * h1),
-    near: { below: Int32Array.from(below), above: Int32Array.from(above) },
+    near: { below, above },
   };
+  if (!byCutoff) {
+    byCutoff = new Map();
+    pilotCache.set(score as object, byCutoff);
+  }
+  byCutoff.set(cutoff, pilots);
+  return pilots;
 }
 
 function pick(values: ArrayLike<number>, idx: Int32Array): Float64Array {
@@ -97,41 +124,90 @@ export function olsCoefficients(
   return beta;
 }
 
-/** Units between the median score below and the median score above the cutoff. */
+/** Units between the median score below and the median score above the cutoff (a slice of the sorted order). */
+const bandCache = new WeakMap<object, Map<number, Int32Array>>();
+
 export function medianBand(score: ArrayLike<number>, cutoff: number): Int32Array {
-  // Medians read off the sorted order (shared with the windows, boundaryWindow.ts).
+  let byCutoff = bandCache.get(score as object);
+  if (!byCutoff) {
+    byCutoff = new Map();
+    bandCache.set(score as object, byCutoff);
+  }
+  let band = byCutoff.get(cutoff);
+  if (!band) {
+    band = computeMedianBand(score, cutoff);
+    byCutoff.set(cutoff, band);
+  }
+  return band;
+}
+
+function computeMedianBand(score: ArrayLike<number>, cutoff: number): Int32Array {
   const order = sortedOrder(score);
-  let nLo = 0;
-  while (nLo < order.length && score[order[nLo]] < cutoff) nLo++;
+  const nLo = searchSorted(score, order, cutoff, false);
   const med = (from: number, count: number): number =>
     count % 2 === 1
       ? score[order[from + (count - 1) / 2]]
       : 0.5 * (score[order[from + count / 2 - 1]] + score[order[from + count / 2]]);
   const mLo = med(0, nLo);
   const mHi = med(nLo, order.length - nLo);
-  const out: number[] = [];
-  for (let i = 0; i < score.length; i++) if (score[i] >= mLo && score[i] <= mHi) out.push(i);
-  return Int32Array.from(out);
+  return order.subarray(searchSorted(score, order, mLo, false), searchSorted(score, order, mHi, true));
 }
+
+// X'X of the step cubic depends on the scores alone: computed once per band
+// and reused for every column whose third derivative is asked for.
+const cubicCache = new WeakMap<Int32Array, { scale: number; cutoff: number; inv: number[][] | null }>();
 
 /** Third derivative m̂₃ of V at the cutoff from the global cubic with a step. */
 export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<number>, cutoff: number, band: Int32Array, scale: number): number {
-  // Regressors in units of x/scale for conditioning; the cubic coefficient is rescaled back.
-  const beta = olsCoefficients(
-    band,
-    5,
-    (i, z) => {
-      const u = (score[i] - cutoff) / scale;
-      z[0] = 1;
-      z[1] = score[i] >= cutoff ? 1 : 0;
-      z[2] = u;
-      z[3] = u * u;
-      z[4] = u * u * u;
-    },
-    values,
-  );
-  if (!beta) throw new CutlineError('the scores between the two side medians take too few values for the pilot cubic fit');
-  return (6 * beta[4]) / (scale * scale * scale);
+  // Regressors (1, 1{R ≥ c}, u, u², u³) with u = x/scale for conditioning; the cubic coefficient is rescaled back.
+  let xtx = cubicCache.get(band);
+  if (!xtx || xtx.scale !== scale || xtx.cutoff !== cutoff) {
+    const m = new Float64Array(7); // Σ u^k, k = 0..6
+    const ms = new Float64Array(4); // Σ_{R ≥ c} u^k, k = 0..3
+    for (let t = 0; t < band.length; t++) {
+      const u = (score[band[t]] - cutoff) / scale;
+      const u2 = u * u;
+      const u3 = u2 * u;
+      m[0] += 1;
+      m[1] += u;
+      m[2] += u2;
+      m[3] += u3;
+      m[4] += u2 * u2;
+      m[5] += u2 * u3;
+      m[6] += u3 * u3;
+      if (u >= 0) {
+        ms[0] += 1;
+        ms[1] += u;
+        ms[2] += u2;
+        ms[3] += u3;
+      }
+    }
+    const a = [
+      [m[0], ms[0], m[1], m[2], m[3]],
+      [ms[0], ms[0], ms[1], ms[2], ms[3]],
+      [m[1], ms[1], m[2], m[3], m[4]],
+      [m[2], ms[2], m[3], m[4], m[5]],
+      [m[3], ms[3], m[4], m[5], m[6]],
+    ];
+    xtx = { scale, cutoff, inv: invertSmall(a) };
+    cubicCache.set(band, xtx);
+  }
+  if (!xtx.inv) throw new CutlineError('the scores between the two side medians take too few values for the pilot cubic fit');
+  const xty = [0, 0, 0, 0, 0];
+  for (let t = 0; t < band.length; t++) {
+    const i = band[t];
+    const u = (score[i] - cutoff) / scale;
+    const v = values[i];
+    const uv = u * v;
+    xty[0] += v;
+    if (u >= 0) xty[1] += v;
+    xty[2] += uv;
+    xty[3] += u * uv;
+    xty[4] += u * u * uv;
+  }
+  let b4 = 0;
+  for (let k = 0; k < 5; k++) b4 += xtx.inv[4][k] * xty[k];
+  return (6 * b4) / (scale * scale * scale);
 }
 
 export { mean };

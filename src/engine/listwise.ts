@@ -4,8 +4,21 @@
  */
 
 /** Rows with no missing cell in any of the masks, and how many were dropped. */
+// Whether a mask marks any row, remembered per mask: a check asks for the
+// listwise rows of the same columns many times.
+const anyMissing = new WeakMap<Uint8Array, boolean>();
+
+function marksAny(m: Uint8Array): boolean {
+  let v = anyMissing.get(m);
+  if (v === undefined) {
+    v = m.indexOf(1) >= 0;
+    anyMissing.set(m, v);
+  }
+  return v;
+}
+
 export function completeRows(n: number, masks: (Uint8Array | undefined)[]): { rows: Int32Array; dropped: number } {
-  const used = masks.filter((m): m is Uint8Array => m !== undefined);
+  const used = masks.filter((m): m is Uint8Array => m !== undefined && marksAny(m));
   const keep = new Int32Array(n);
   let m = 0;
   for (let r = 0; r < n; r++) {

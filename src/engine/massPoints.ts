@@ -16,6 +16,8 @@
  * bandwidths span many support points there.
  */
 
+import { sortedOrder } from './boundaryWindow';
+
 export interface DistinctScores {
   below: number;
   above: number;
@@ -41,6 +43,7 @@ export function windowDistinctScores(
   bandwidth: number,
   rows?: Int32Array,
 ): DistinctScores {
+  if (!rows) return distinctFromOrder(score, cutoff, bandwidth);
   const total = rows ? rows.length : score.length;
   const inWindow = (x: number) => (x >= 0 ? x < bandwidth : -x < bandwidth);
   let na = 0;
@@ -62,6 +65,38 @@ export function windowDistinctScores(
   a.sort();
   b.sort();
   return { below: countDistinctSorted(b), above: countDistinctSorted(a), unitsBelow: b.length, unitsAbove: a.length };
+}
+
+/** The same counts read off the shared sorted order of the scores (no sort, no copy). */
+function distinctFromOrder(score: ArrayLike<number>, cutoff: number, bandwidth: number): DistinctScores {
+  const order = sortedOrder(score);
+  const out = { below: 0, above: 0, unitsBelow: 0, unitsAbove: 0 };
+  let prev = NaN;
+  // First unit with x > −bandwidth (the predicate is monotone along the order).
+  let lo = 0;
+  let hi = order.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (score[order[mid]] - cutoff > -bandwidth) hi = mid;
+    else lo = mid + 1;
+  }
+  for (let t = lo; t < order.length; t++) {
+    const r = score[order[t]];
+    const x = r - cutoff;
+    if (x >= 0 ? !(x < bandwidth) : !(-x < bandwidth)) {
+      if (x >= 0) break;
+      continue;
+    }
+    if (x >= 0) {
+      out.unitsAbove++;
+      if (out.unitsAbove === 1 || r !== prev) out.above++;
+    } else {
+      out.unitsBelow++;
+      if (out.unitsBelow === 1 || r !== prev) out.below++;
+    }
+    prev = r;
+  }
+  return out;
 }
 
 /** True when a side's window is mostly mass points (see the rule above). */

@@ -42,6 +42,27 @@ export function fitResiduals(side: SideFit, values: ArrayLike<number>, degree: 1
   return e;
 }
 
+// A column's values at a side's units, in the side's order: every pass over a
+// window reads them, and the gather from the data order is the slow part.
+const gatherCache = new WeakMap<SortedSide, WeakMap<object, Float64Array>>();
+
+/** values[index[t]] for the side's units, computed once per side and column. */
+export function gathered(side: SortedSide, values: ArrayLike<number>): Float64Array {
+  let bySide = gatherCache.get(side);
+  if (!bySide) {
+    bySide = new WeakMap();
+    gatherCache.set(side, bySide);
+  }
+  let v = bySide.get(values as object);
+  if (!v) {
+    const { index } = side;
+    v = new Float64Array(index.length);
+    for (let t = 0; t < index.length; t++) v[t] = values[index[t]];
+    bySide.set(values as object, v);
+  }
+  return v;
+}
+
 // nn residuals depend on the side and the column only; a check asks for the
 // same ones several times (pilots, estimates). Callers never write to them.
 const nnCache = new WeakMap<SortedSide, WeakMap<object, Float64Array>>();
@@ -65,8 +86,7 @@ export function nnResiduals(side: SortedSide, values: ArrayLike<number>, J = NN_
 function computeNn(side: SortedSide, values: ArrayLike<number>, J: number): Float64Array {
   const { index, x } = side;
   const n = index.length;
-  const v = new Float64Array(n);
-  for (let t = 0; t < n; t++) v[t] = values[index[t]];
+  const v = gathered(side, values);
   const e = new Float64Array(n);
   const jj = Math.min(J, n - 1);
   const scale = Math.sqrt(jj / (jj + 1));

@@ -17,7 +17,27 @@ export interface ScoreSummary {
   above: number;
 }
 
+// The density tests and the permutation tests of a check summarise the same
+// scores: remembered per score array and cutoff (whole arrays only).
+const summaryCache = new WeakMap<object, Map<string, ScoreSummary>>();
+
 export function scoreSummary(score: ArrayLike<number>, cutoff: number, rows?: Int32Array, what = 'score'): ScoreSummary {
+  if (rows) return computeSummary(score, cutoff, rows, what);
+  let byKey = summaryCache.get(score as object);
+  if (!byKey) {
+    byKey = new Map();
+    summaryCache.set(score as object, byKey);
+  }
+  const key = `${cutoff}|${what}`;
+  let s = byKey.get(key);
+  if (!s) {
+    s = computeSummary(score, cutoff, undefined, what);
+    byKey.set(key, s);
+  }
+  return s;
+}
+
+function computeSummary(score: ArrayLike<number>, cutoff: number, rows: Int32Array | undefined, what: string): ScoreSummary {
   if (!Number.isFinite(cutoff)) throw new CutlineError(`the cutoff must be a finite number, got ${cutoff}`);
   const n = rows ? rows.length : score.length;
   let sum = 0;

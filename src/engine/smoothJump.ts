@@ -17,7 +17,7 @@
  * below (then every jump is reported as below − above).
  */
 import { Window, SideFit } from './boundaryWindow';
-import { VarianceName, sideResiduals } from './residuals';
+import { VarianceName, gathered, sideResiduals } from './residuals';
 
 export interface SmoothedJump {
   estimate: number;
@@ -61,9 +61,10 @@ export function smoothJump(win: Window, values: ArrayLike<number>, variance: Var
     const off = side.above ? 0 : na;
     const w = side.coef1[0];
     const e1 = sideResiduals(side, values, variance, 1);
+    const v = gathered(side, values);
     let a = 0;
     for (let t = 0; t < w.length; t++) {
-      a += w[t] * values[side.index[t]];
+      a += w[t] * v[t];
       psi[off + t] = s * w[t] * e1[t];
     }
     estimate += s * a;
@@ -72,7 +73,7 @@ export function smoothJump(win: Window, values: ArrayLike<number>, variance: Var
       const e2 = variance === 'nn' ? e1 : sideResiduals(side, values, variance, 2);
       let ab = 0;
       for (let t = 0; t < wb.length; t++) {
-        ab += wb[t] * values[side.index[t]];
+        ab += wb[t] * v[t];
         psiRobust[off + t] = s * wb[t] * e2[t];
       }
       estimateRobust += s * ab;
