@@ -17,8 +17,19 @@ function marksAny(m: Uint8Array): boolean {
   return v;
 }
 
+// Rows arrays are read-only for every caller, so one identity array serves all.
+let lastIdentity = new Int32Array(0);
+function identity(n: number): Int32Array {
+  if (lastIdentity.length !== n) {
+    lastIdentity = new Int32Array(n);
+    for (let i = 0; i < n; i++) lastIdentity[i] = i;
+  }
+  return lastIdentity;
+}
+
 export function completeRows(n: number, masks: (Uint8Array | undefined)[]): { rows: Int32Array; dropped: number } {
   const used = masks.filter((m): m is Uint8Array => m !== undefined && marksAny(m));
+  if (used.length === 0) return { rows: identity(n), dropped: 0 };
   const keep = new Int32Array(n);
   let m = 0;
   for (let r = 0; r < n; r++) {

@@ -5,7 +5,6 @@
  */
 import { CutlineError } from '../engine/errors';
 import { cellLabel, cellNumber, showCell } from './cells';
-import { MISSING, SLOW } from './fastNumber';
 import { Table } from './table';
 
 export interface NumericColumn {
@@ -38,22 +37,8 @@ export function findColumn(table: Table, name: string, role: string): number {
 export function numericColumn(table: Table, name: string, role: ColumnRole): NumericColumn {
   const c = findColumn(table, name, `--${role}`);
   const n = table.rowCount;
-  const values = new Float64Array(n);
-  const missing = new Uint8Array(n);
   const binary = role === 'treated';
-  const fast = table.fastNumber;
-  for (let r = 0; r < n; r++) {
-    if (fast) {
-      const f = fast(r, c);
-      if (f === MISSING) {
-        missing[r] = 1;
-        continue;
-      }
-      if (f !== SLOW && (!binary || f === 0 || f === 1)) {
-        values[r] = f;
-        continue;
-      }
-    }
+  const read = (r: number, values: Float64Array, missing: Uint8Array): void => {
     const cell = table.get(r, c);
     const v = cellNumber(cell);
     if (v === null) {
@@ -68,7 +53,22 @@ export function numericColumn(table: Table, name: string, role: ColumnRole): Num
     } else {
       values[r] = v;
     }
+  };
+  if (table.fastColumn) {
+    const { values, missing, slow } = table.fastColumn(c);
+    // The first bad row must be the one named: the fast reads of binary values are checked in row order too.
+    let s = 0;
+    for (let r = 0; r < n; r++) {
+      if (s < slow.length && slow[s] === r) {
+        read(r, values, missing);
+        s++;
+      } else if (binary && !missing[r] && values[r] !== 0 && values[r] !== 1) read(r, values, missing);
+    }
+    return { name: table.header[c], values, missing };
   }
+  const values = new Float64Array(n);
+  const missing = new Uint8Array(n);
+  for (let r = 0; r < n; r++) read(r, values, missing);
   return { name: table.header[c], values, missing };
 }
 

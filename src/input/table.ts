@@ -20,6 +20,11 @@ export interface Table {
    * when the general rules of cells.ts must decide (plain CSV texts have it).
    */
   fastNumber?(r: number, c: number): number | typeof SLOW | typeof MISSING;
+  /**
+   * Optional fast read of a whole column: values, a missing mask, and the rows
+   * (ascending) that the general rules must decide.
+   */
+  fastColumn?(c: number): { values: Float64Array; missing: Uint8Array; slow: Int32Array };
 }
 
 /** A table over arrays of arrays; the first row is the header unless `header` is given. */
