@@ -41,6 +41,10 @@ interface Prepared {
   sign: 1 | -1;
 }
 
+// The CDFs, densities and means of one check use the same window, columns and
+// sign: the checked window is remembered per (window side, treated, outcome).
+const preparedCache = new WeakMap<SideFit, WeakMap<object, WeakMap<object, Prepared>>>();
+
 function prepare(
   score: ArrayLike<number>,
   treated: ArrayLike<number>,
@@ -49,24 +53,45 @@ function prepare(
   opts: ComplierOptions,
 ): Prepared {
   const sign = opts.sign ?? 1;
-  if (sign !== 1 && sign !== -1) throw new CutlineError(`sign must be 1 (eligibility above) or -1 (below), got ${String(sign)}`);
   if (treated.length !== score.length || outcome.length !== score.length)
     throw new CutlineError(`score, treated and outcome must have the same length (${score.length}, ${treated.length}, ${outcome.length})`);
   const win = boundaryWindow(score, cutoff, opts.bandwidth, opts.kernel, { quadratic: false });
+  let byTreated = preparedCache.get(win.above);
+  if (!byTreated) {
+    byTreated = new WeakMap();
+    preparedCache.set(win.above, byTreated);
+  }
+  let byOutcome = byTreated.get(treated as object);
+  if (!byOutcome) {
+    byOutcome = new WeakMap();
+    byTreated.set(treated as object, byOutcome);
+  }
+  const hit = byOutcome.get(outcome as object);
+  if (hit && hit.sign === sign && hit.win.below === win.below) return hit;
+  const p = checkWindow(win, treated, outcome, opts, sign);
+  byOutcome.set(outcome as object, p);
+  return p;
+}
+
+function checkWindow(win: Window, treated: ArrayLike<number>, outcome: ArrayLike<number>, opts: ComplierOptions, sign: number): Prepared {
+  if (sign !== 1 && sign !== -1) throw new CutlineError(`sign must be 1 (eligibility above) or -1 (below), got ${String(sign)}`);
   const plus = sign === 1 ? win.above : win.below;
   const minus = sign === 1 ? win.below : win.above;
-  for (const side of [plus, minus])
-    for (const i of side.index) {
+  for (const side of [plus, minus]) {
+    const idx = side.index;
+    for (let t = 0; t < idx.length; t++) {
+      const i = idx[t];
       if (treated[i] !== 0 && treated[i] !== 1) throw new CutlineError(`treated must be 0 or 1, got ${treated[i]} at row ${i + 1}`);
       if (!Number.isFinite(outcome[i])) throw new CutlineError(`outcome is not a finite number at row ${i + 1}`);
     }
+  }
   const pi = applyWeights(plus.coef1[0], plus.index, treated) - applyWeights(minus.coef1[0], minus.index, treated);
   if (!(pi > 0))
     throw new CutlineError(
       `the take-up jump is ${Number(pi.toPrecision(4))} at bandwidth ${opts.bandwidth}: take-up does not rise at the cutoff, ` +
         `so the complier distributions are not defined — check the treated column and the eligibility side`,
     );
-  return { win, plus, minus, pi, sign };
+  return { win, plus, minus, pi, sign: sign as 1 | -1 };
 }
 
 function intercept(side: SideFit, v: (i: number) => number): number {

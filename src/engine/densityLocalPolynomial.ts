@@ -38,6 +38,7 @@
  * @example localPolynomialDensityTest(score, 60).pvalue
  */
 import { CutlineError } from './errors';
+import { sortedOrder } from './boundaryWindow';
 import { histogramHeights, mccraryDefaultBin } from './densityMcCrary';
 import { invertSmall } from './linalg';
 import { countDistinctSorted, distinctScoreWarning } from './massPoints';
@@ -205,7 +206,34 @@ function comboVariance(up: SideFitResult, lo: SideFitResult, a: number, b: numbe
   return ss / (n * n);
 }
 
+/** x = R − c of the window's units on each side, ascending, read off the shared sorted order. */
+function windowFromOrder(score: ArrayLike<number>, cutoff: number, h: number): { xa: Float64Array; xb: Float64Array } {
+  const order = sortedOrder(score);
+  const first = (pred: (x: number) => boolean): number => {
+    let lo = 0;
+    let hi = order.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (pred(score[order[mid]] - cutoff)) hi = mid;
+      else lo = mid + 1;
+    }
+    return lo;
+  };
+  const b0 = first((x) => x > -h);
+  const c0 = first((x) => x >= 0);
+  const a1 = first((x) => x >= 0 && !(x < h));
+  const xb = new Float64Array(Math.max(0, c0 - b0));
+  for (let t = b0; t < c0; t++) xb[t - b0] = score[order[t]] - cutoff;
+  const xa = new Float64Array(a1 - c0);
+  for (let t = c0; t < a1; t++) xa[t - c0] = score[order[t]] - cutoff;
+  return { xa, xb };
+}
+
 function collectWindows(score: ArrayLike<number>, cutoff: number, h: number, s: ScoreSummary, rows?: Int32Array) {
+  if (!rows) {
+    const { xa, xb } = windowFromOrder(score, cutoff, h);
+    return { above: { x: xa, F: ecdf(xa, s.below, s.n) }, below: { x: xb, F: ecdf(xb, s.below - xb.length, s.n) } };
+  }
   const total = rows ? rows.length : score.length;
   let na = 0;
   let nb = 0;
@@ -224,20 +252,22 @@ function collectWindows(score: ArrayLike<number>, cutoff: number, h: number, s: 
   }
   xa.sort();
   xb.sort();
-  const ecdf = (x: Float64Array, offset: number): Float64Array => {
-    const F = new Float64Array(x.length);
-    for (let i = x.length - 1; i >= 0; ) {
-      let k = i;
-      while (k > 0 && x[k - 1] === x[i]) k--;
-      for (let t = k; t <= i; t++) F[t] = (offset + i + 1) / s.n;
-      i = k - 1;
-    }
-    return F;
-  };
   return {
-    above: { x: xa, F: ecdf(xa, s.below) },
-    below: { x: xb, F: ecdf(xb, s.below - xb.length) },
+    above: { x: xa, F: ecdf(xa, s.below, s.n) },
+    below: { x: xb, F: ecdf(xb, s.below - xb.length, s.n) },
   };
+}
+
+/** F̂ at each unit of an ascending window, ties sharing the count of units ≤ them; `offset` units lie before the window. */
+function ecdf(x: Float64Array, offset: number, n: number): Float64Array {
+  const F = new Float64Array(x.length);
+  for (let i = x.length - 1; i >= 0; ) {
+    let k = i;
+    while (k > 0 && x[k - 1] === x[i]) k--;
+    for (let t = k; t <= i; t++) F[t] = (offset + i + 1) / n;
+    i = k - 1;
+  }
+  return F;
 }
 
 export function localPolynomialDensityTest(
