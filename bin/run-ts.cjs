@@ -39,7 +39,6 @@ function bundled(entry) {
       target: 'node20',
       format: 'cjs',
       packages: 'external',
-      sourcemap: 'inline',
       logLevel: 'error',
     });
   }
