@@ -4,17 +4,9 @@
  */
 import { CheckResult, EstimateSummary } from '../engine/check';
 
-function estimate(e: EstimateSummary): Record<string, unknown> {
-  return {
-    estimate: e.estimate,
-    se: e.se,
-    ci: e.ci,
-    ci_robust: e.ci_robust,
-    pvalue: e.pvalue,
-    estimate_robust: e.estimate_robust,
-    se_robust: e.se_robust,
-    pvalue_conventional: e.pvalue_conventional,
-  };
+/** An estimate as the engine summarises it (check.ts decides its fields). */
+function estimate(e: EstimateSummary): EstimateSummary {
+  return { ...e };
 }
 
 export function toJson(r: CheckResult): Record<string, unknown> {

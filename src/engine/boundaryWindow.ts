@@ -150,6 +150,26 @@ function windowPositions(score: ArrayLike<number>, cutoff: number, h: number, ro
   return { above: order.slice(c, e), below: order.slice(Math.min(a, c), c) };
 }
 
+/** x = R − c, kernel weights and the count of distinct scores of window units sorted by score. */
+function coordinates(
+  score: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  index: Int32Array,
+): { x: Float64Array; k: Float64Array; distinct: number } {
+  const n = index.length;
+  const x = new Float64Array(n);
+  const k = new Float64Array(n);
+  let distinct = 0;
+  for (let t = 0; t < n; t++) {
+    x[t] = score[index[t]] - cutoff;
+    k[t] = kernelWeight(kernel, x[t] / h);
+    if (t === 0 || x[t] !== x[t - 1]) distinct++;
+  }
+  return { x, k, distinct };
+}
+
 /** One side's fit from its window positions (sorted by score). */
 function fitPositions(
   score: ArrayLike<number>,
@@ -161,15 +181,8 @@ function fitPositions(
   positions: Int32Array,
 ): SideFit {
   const index = positions;
+  const { x, k, distinct } = coordinates(score, cutoff, h, kernel, index);
   const n = index.length;
-  const x = new Float64Array(n);
-  const k = new Float64Array(n);
-  let distinct = 0;
-  for (let t = 0; t < n; t++) {
-    x[t] = score[index[t]] - cutoff;
-    k[t] = kernelWeight(kernel, x[t] / h);
-    if (t === 0 || x[t] !== x[t - 1]) distinct++;
-  }
   if (n < 3) {
     throw new CutlineError(
       `the window (bandwidth ${fmt(h)}) holds ${n} unit${n === 1 ? '' : 's'} ${sideName(above)} the cutoff; ` +
@@ -217,14 +230,7 @@ export function curvatureWeights(
   const pos = windowPositions(score, cutoff, b);
   const index = above ? pos.above : pos.below;
   const n = index.length;
-  const x = new Float64Array(n);
-  const k = new Float64Array(n);
-  let distinct = 0;
-  for (let t = 0; t < n; t++) {
-    x[t] = score[index[t]] - cutoff;
-    k[t] = kernelWeight(kernel, x[t] / b);
-    if (t === 0 || x[t] !== x[t - 1]) distinct++;
-  }
+  const { x, k, distinct } = coordinates(score, cutoff, b, kernel, index);
   if (n < 4 || distinct < 3) {
     throw new CutlineError(
       `the curvature pilot (bandwidth ${fmt(b)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) for a quadratic fit — type a bandwidth instead`,
