@@ -91,11 +91,14 @@ export function required(args: ParsedArgs, name: string, what: string): string {
   return v;
 }
 
+const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
+
 export function numberOption(args: ParsedArgs, name: string, check?: (v: number) => string | null): number | undefined {
   const s = one(args, name);
   if (s === undefined) return undefined;
   const v = Number(s.trim());
-  if (s.trim() === '' || !Number.isFinite(v)) throw new CutlineError(`--${name} must be a number, got ${JSON.stringify(s)}`);
+  // Decimal only: Number() would also take 0x10, 0b1 and 0o7, which no cell accepts either (cells.ts).
+  if (!DECIMAL.test(s.trim()) || !Number.isFinite(v)) throw new CutlineError(`--${name} must be a number, got ${JSON.stringify(s)}`);
   const problem = check?.(v);
   if (problem) throw new CutlineError(`--${name} ${problem}, got ${s}`);
   return v;
