@@ -8,6 +8,7 @@ import { CheckInput, runCheck } from '../engine/check';
 import { CutlineError } from '../engine/errors';
 import { KERNEL_NAMES } from '../engine/kernels';
 import { VARIANCE_NAMES } from '../engine/residuals';
+import { MAX_DRAWS, MAX_GRID } from '../engine/validityTest';
 import { labelColumn, numericColumn } from '../input/columns';
 import { choiceOption, numberOption, one, parseArgs, ParsedArgs, required } from './args';
 import { toJson } from './json';
@@ -53,9 +54,13 @@ async function check(args: ParsedArgs): Promise<void> {
   const variance = choiceOption(args, 'variance', VARIANCE_NAMES) ?? (clusterName ? 'cluster' : undefined);
   if (variance === 'cluster' && !clusterName) throw new CutlineError('--variance cluster needs --cluster COL');
 
-  const draws = numberOption(args, 'draws', (v) => (Number.isInteger(v) && v >= 1 ? null : 'must be a whole number of at least 1'));
+  const draws = numberOption(args, 'draws', (v) =>
+    !Number.isInteger(v) || v < 1 ? 'must be a whole number of at least 1' : v > MAX_DRAWS ? `must be at most ${MAX_DRAWS} (more draws only slow the check down)` : null,
+  );
   const seed = numberOption(args, 'seed', (v) => (Number.isInteger(v) && v >= 0 && v <= 4294967295 ? null : 'must be a whole number from 0 to 4294967295'));
-  const grid = numberOption(args, 'grid', (v) => (Number.isInteger(v) && v >= 2 ? null : 'must be a whole number of at least 2'));
+  const grid = numberOption(args, 'grid', (v) =>
+    !Number.isInteger(v) || v < 2 ? 'must be a whole number of at least 2' : v > MAX_GRID ? `must be at most ${MAX_GRID} (the intervals grow as its square)` : null,
+  );
   const trim = numberOption(args, 'trim', (v) => (v >= 0 ? null : 'must be at least 0'));
   const multiplier = choiceOption(args, 'multiplier', ['normal', 'rademacher'] as const);
   const sensitivity = sensitivityOption(one(args, 'sensitivity'));
