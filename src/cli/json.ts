@@ -16,6 +16,7 @@ export function toJson(r: CheckResult): Record<string, unknown> {
     rows: r.rows,
     bandwidth: { value: r.bandwidth.value, rule: r.bandwidth.rule, kernel: r.bandwidth.kernel, variance: r.bandwidth.variance, window: r.bandwidth.window },
     takeup: estimate(r.takeup),
+    test_bandwidth: r.test_bandwidth,
     outcomes: r.outcomes.map((o) => ({
       name: o.name,
       rows: o.rows,
@@ -26,6 +27,7 @@ export function toJson(r: CheckResult): Record<string, unknown> {
         statistic: o.validity.statistic,
         pvalue: o.validity.pvalue,
         pvalue_holm: o.validity.pvalue_holm,
+        rejects: o.validity.rejects,
         critical_value: o.validity.critical_value,
         intervals: o.validity.intervals,
         draws: o.validity.draws,
@@ -36,7 +38,7 @@ export function toJson(r: CheckResult): Record<string, unknown> {
         by_bandwidth: o.validity.by_bandwidth.map((b) =>
           b.error !== undefined
             ? { multiple: b.multiple, bandwidth: b.bandwidth, error: b.error }
-            : { multiple: b.multiple, bandwidth: b.bandwidth, statistic: b.statistic, pvalue: b.pvalue, critical_value: b.critical_value },
+            : { multiple: b.multiple, bandwidth: b.bandwidth, statistic: b.statistic, pvalue: b.pvalue, critical_value: b.critical_value, rejects: b.rejects },
         ),
         ...(o.validity.within !== undefined ? { within: o.validity.within } : {}),
       },

@@ -34,6 +34,23 @@ function sensitivityOption(s: string | undefined): number[] | undefined {
   return values;
 }
 
+/** One column, one role: an outcome given twice, or the score as the outcome, is a slip, not a request. */
+function distinctRoles(input: CheckInput): void {
+  const roles: Array<[string, string]> = [
+    ['--score', input.score.name],
+    ['--treated', input.treated.name],
+    ...input.outcomes.map((o): [string, string] => ['--outcome', o.name]),
+  ];
+  roles.forEach(([role, name], i) => {
+    const j = roles.findIndex(([, other]) => other === name);
+    if (j < i) throw new CutlineError(`${role}: column ${JSON.stringify(name)} is already given as ${roles[j][0]}`);
+  });
+  const covs = (input.covariates ?? []).map((c) => c.name);
+  covs.forEach((name, i) => {
+    if (covs.indexOf(name) < i) throw new CutlineError(`--covariate: column ${JSON.stringify(name)} is given twice`);
+  });
+}
+
 async function check(args: ParsedArgs): Promise<void> {
   const file = args.file;
   if (!file) throw new CutlineError('check needs an input FILE (CSV or XLSX)');
@@ -51,8 +68,8 @@ async function check(args: ParsedArgs): Promise<void> {
   if (bandwidth !== undefined && rule !== undefined) throw new CutlineError('give --bandwidth or --bandwidth-rule, not both');
   const kernel = choiceOption(args, 'kernel', KERNEL_NAMES);
   const clusterName = one(args, 'cluster');
-  const variance = choiceOption(args, 'variance', VARIANCE_NAMES) ?? (clusterName ? 'cluster' : undefined);
-  if (variance === 'cluster' && !clusterName) throw new CutlineError('--variance cluster needs --cluster COL');
+  const variance = choiceOption(args, 'variance', VARIANCE_NAMES) ?? (clusterName !== undefined ? 'cluster' : undefined);
+  if (variance === 'cluster' && clusterName === undefined) throw new CutlineError('--variance cluster needs --cluster COL');
 
   const draws = numberOption(args, 'draws', (v) =>
     !Number.isInteger(v) || v < 1 ? 'must be a whole number of at least 1' : v > MAX_DRAWS ? `must be at most ${MAX_DRAWS} (more draws only slow the check down)` : null,
@@ -77,9 +94,15 @@ async function check(args: ParsedArgs): Promise<void> {
     treated: numericColumn(table, treatedName, 'treated'),
     outcomes: outcomeNames.map((o) => numericColumn(table, o, 'outcome')),
     covariates: (args.values.get('covariate') ?? []).map((c) => numericColumn(table, c, 'covariate')),
-    cluster: clusterName ? labelColumn(table, clusterName, 'cluster') : undefined,
-    within: withinName ? labelColumn(table, withinName, 'within') : undefined,
+    cluster: clusterName !== undefined ? labelColumn(table, clusterName, 'cluster') : undefined,
+    within: withinName !== undefined ? labelColumn(table, withinName, 'within') : undefined,
   };
+  distinctRoles(input);
+  if (variance === 'cluster' && input.cluster && input.cluster.labels.length < 2) {
+    throw new CutlineError(
+      `--cluster: column ${JSON.stringify(input.cluster.name)} holds ${input.cluster.labels.length} cluster${input.cluster.labels.length === 1 ? '' : 's'}; clustered standard errors need at least 2 (and are rough with fewer than about 20)`,
+    );
+  }
   const result = runCheck(input, {
     cutoff,
     bandwidth,

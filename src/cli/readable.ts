@@ -48,7 +48,7 @@ function validityBlock(o: OutcomeResult): string[] {
     `  statistic ${num(v.statistic)}, 5% critical value ${num(v.critical_value)}, ${v.intervals} intervals, ${v.draws} draws (seed ${v.seed}), ` +
       `${v.window.below} below / ${v.window.above} above in the window`,
   );
-  const cell = v.worst.cell !== undefined ? ` in cell ${v.worst.cell}` : '';
+  const cell = v.worst.cell !== undefined ? ` in the cell ${v.within} = ${v.worst.cell_label ?? v.worst.cell}` : '';
   lines.push(
     `  worst interval (largest t): ${armName(v.worst.arm)}, outcomes from ${num(v.worst.from)} to ${num(v.worst.to)}${cell} (t = ${num(v.worst.t)})`,
   );
@@ -117,7 +117,7 @@ export function readable(file: string, r: CheckResult): string {
   out.push(`Cutoff ${r.cutoff}; eligible units: ${side}`);
   out.push(
     `Rows: ${r.rows.read} read, ${r.rows.used} used, ${r.rows.dropped} dropped for missing values` +
-      (r.donut ? ` or inside the donut (${r.donut.excluded} rows with |score − ${r.cutoff}| < ${r.donut.radius} left out of every estimate and test)` : ''),
+      (r.donut ? `; ${r.donut.excluded} rows with |score − ${r.cutoff}| < ${r.donut.radius} left out of every estimate and test (donut)` : ''),
   );
   out.push(
     `Bandwidth ${num(r.bandwidth.value)} (${r.bandwidth.rule === 'typed' ? 'typed' : `rule ${r.bandwidth.rule}`}, ` +

@@ -90,7 +90,8 @@ export interface ValiditySummary {
   seed: number;
   bandwidth: number;
   window: { below: number; above: number };
-  worst: { arm: 0 | 1; from: number; to: number; t: number; cell?: number };
+  /** `cell` is the cell's code (order of first appearance); `cell_label` its value in the data. */
+  worst: { arm: 0 | 1; from: number; to: number; t: number; cell?: number; cell_label?: string };
   by_bandwidth: ValidityAtBandwidth[];
   within?: string;
 }
@@ -356,7 +357,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
         seed: v.seed,
         bandwidth: testH,
         window: v.counts,
-        worst: v.worst,
+        worst: v.worst.cell !== undefined && input.within ? { ...v.worst, cell_label: input.within.labels[v.worst.cell] } : v.worst,
         by_bandwidth: byBandwidth,
         within: input.within?.name,
       },
@@ -402,7 +403,12 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   return {
     cutoff,
     eligible: sign > 0 ? 'above' : 'below',
-    rows: { read: n, used: first.rows.length, dropped: first.dropped },
+    rows: {
+      read: n,
+      used: first.rows.length,
+      // Missing values only; units inside a donut are counted in `donut.excluded`.
+      dropped: donut ? completeRows(n, [input.score.missing, input.treated.missing, input.outcomes[0].missing, input.cluster?.missing]).dropped : first.dropped,
+    },
     bandwidth: { value: h, rule: bw.rule, kernel, variance, window: takeupEst.counts },
     takeup: summary(takeupEst.takeup),
     test_bandwidth: { value: testH, rule: options.bandwidth !== undefined ? 'typed' : 'undersmoothed mse' },

@@ -2,8 +2,14 @@
  * Seeded random numbers, identical on every machine: xoshiro128** (Blackman &
  * Vigna 2018, "Scrambled linear pseudorandom number generators") on 32-bit
  * integer arithmetic, seeded through splitmix32; normals by the Box–Muller
- * transform (Box & Muller 1958), both values of each pair used. Only Math.imul,
- * shifts and IEEE double arithmetic are involved, so results are reproducible.
+ * transform (Box & Muller 1958), both values of each pair used. The integer
+ * stream uses only Math.imul, shifts and exact double arithmetic, so uniforms,
+ * signs and shuffles are identical everywhere. Normals also use Math.log,
+ * Math.sin and Math.cos, which ECMAScript does not require to be correctly
+ * rounded: Node's V8 computes them with its own fixed (fdlibm-derived) code,
+ * so they agree across machines running Node, but another JavaScript engine
+ * could differ in the last bit (a p-value, a count, moves only if a draw
+ * lands within rounding of the statistic).
  *
  * @example
  *   const rng = new Random(1);
@@ -54,7 +60,7 @@ export class Random {
     return (hi * 67108864 + lo) / 9007199254740992;
   }
 
-  /** Uniform integer in 0..n−1 (n ≤ 2³²), without modulo bias. */
+  /** Uniform integer in 0..n−1 by floor(uniform·n) (53 random bits: bias below 2⁻²¹ for n ≤ 2³²). */
   integer(n: number): number {
     return Math.floor(this.uniform() * n);
   }
