@@ -26,10 +26,15 @@ export type ColumnRole = 'score' | 'treated' | 'outcome' | 'covariate' | 'cluste
 
 /** Index of a named column; the message lists what the table has. */
 export function findColumn(table: Table, name: string, role: string): number {
-  const i = table.header.indexOf(name);
-  if (i >= 0) return i;
-  const lower = table.header.findIndex((h) => h.toLowerCase() === name.toLowerCase());
-  if (lower >= 0) return lower;
+  if (name.trim() === '') throw new CutlineError(`${role} needs a column name, got an empty one`);
+  // An exact match wins; else a match ignoring case. Two matches: refuse rather than guess.
+  for (const same of [(h: string) => h === name, (h: string) => h.toLowerCase() === name.toLowerCase()]) {
+    const hits = table.header.flatMap((h, k) => (same(h) ? [k] : []));
+    if (hits.length > 1) {
+      throw new CutlineError(`${role}: the header has ${hits.length} columns named ${JSON.stringify(name)} (columns ${hits.map((k) => k + 1).join(', ')}); rename them`);
+    }
+    if (hits.length === 1) return hits[0];
+  }
   const shown = table.header.slice(0, 12).map((h) => JSON.stringify(h)).join(', ');
   throw new CutlineError(`${role}: no column named ${JSON.stringify(name)}; the columns are ${shown}${table.header.length > 12 ? ', …' : ''}`);
 }
