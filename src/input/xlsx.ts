@@ -14,6 +14,8 @@ function plain(v: ExcelJS.CellValue): Cell {
   if (v instanceof Date) return v.toISOString();
   if (typeof v === 'object') {
     if ('result' in v) return plain((v as ExcelJS.CellFormulaValue).result as ExcelJS.CellValue);
+    // A formula the writing program never calculated: say so rather than "[object Object]".
+    if ('formula' in v || 'sharedFormula' in v) return `a formula with no saved value (=${(v as ExcelJS.CellFormulaValue).formula ?? '…'})`;
     if ('richText' in v) return (v as ExcelJS.CellRichTextValue).richText.map((t) => t.text).join('');
     if ('text' in v) return String((v as ExcelJS.CellHyperlinkValue).text);
     if ('error' in v) return String((v as ExcelJS.CellErrorValue).error);
@@ -49,7 +51,10 @@ export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string,
   });
   for (let r = 0; r < rows.length; r++) if (!rows[r]) rows[r] = new Array(width).fill(null);
   while (rows.length > 1 && rows[rows.length - 1].every((c) => c === null || c === '')) rows.pop();
-  if (rows.length === 0) throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} is empty`);
+  if (rows.length === 0 || rows.every((r) => r.every((c) => c === null || c === ''))) {
+    const others = sheet === undefined && wb.worksheets.length > 1 ? `; choose a worksheet with --sheet (the workbook has ${wb.worksheets.map((w) => JSON.stringify(w.name)).join(', ')})` : '';
+    throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} is empty${others}`);
+  }
   const table = tableFromRows(rows);
   if (table.rowCount === 0) throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} has a header but no data rows`);
   return table;
