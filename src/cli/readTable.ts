@@ -24,6 +24,9 @@ export async function readTable(file: string, sheet?: string): Promise<Table> {
   }
   const ext = path.extname(file).toLowerCase();
   const zip = bytes.length >= 4 && bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 3 && bytes[3] === 4;
+  if (!zip && (ext === '.xlsx' || ext === '.xlsm') && !bytes.includes(0) && bytes.length > 0) {
+    throw new CutlineError(`${file} is named as an .xlsx workbook but holds plain text; if it is a CSV file, give it a .csv name`);
+  }
   if (zip || ext === '.xlsx' || ext === '.xlsm') return parseXlsx(bytes, sheet, file);
   if (sheet !== undefined) throw new CutlineError(`--sheet applies to XLSX workbooks; ${file} is read as CSV`);
   if (bytes.includes(0)) throw new CutlineError(`${file} is neither a CSV text nor an XLSX workbook`);
