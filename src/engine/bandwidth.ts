@@ -12,6 +12,9 @@ import { KernelName } from './kernels';
 export type BandwidthRule = 'mse' | 'ik' | 'cer';
 export const BANDWIDTH_RULES: readonly BandwidthRule[] = ['mse', 'ik', 'cer'];
 
+/** A typed bandwidth may exceed the largest |score − cutoff| at most this many times. */
+export const MAX_BANDWIDTH_REACH = 10;
+
 export interface BandwidthChoice {
   value: number;
   /** The rule, or "typed" for a bandwidth the user gave. */
@@ -27,6 +30,16 @@ export function chooseBandwidth(
   if (options.typed !== undefined) {
     if (!(options.typed > 0) || !Number.isFinite(options.typed)) {
       throw new CutlineError(`bandwidth must be a positive number, got ${options.typed}`);
+    }
+    // Far beyond the data the kernel weights are flat and the fits' normal equations lose
+    // their precision (they are scaled by h), so a huge typed bandwidth is refused by name.
+    let reach = 0;
+    for (let i = 0; i < score.length; i++) reach = Math.max(reach, Math.abs(score[i] - cutoff));
+    if (options.typed > MAX_BANDWIDTH_REACH * reach) {
+      throw new CutlineError(
+        `bandwidth ${options.typed} is more than ${MAX_BANDWIDTH_REACH} times the largest distance of a score from the cutoff ` +
+          `(${Number(reach.toPrecision(6))}); a bandwidth just above that distance already puts every unit in the window`,
+      );
     }
     return { value: options.typed, rule: 'typed' };
   }
