@@ -169,6 +169,14 @@ export function mccraryTest(score: ArrayLike<number>, cutoff: number, opts: McCr
   if (opts.bandwidth !== undefined) {
     h = opts.bandwidth;
     if (!(h > 0) || !Number.isFinite(h)) throw new CutlineError(`the density bandwidth must be a positive number, got ${h}`);
+    // Its standard error scales as 1/sqrt(n h): beyond the data that shrinks with h while the
+    // estimate stays put (a bandwidth of 1e300 gave se 1e-151), so such a bandwidth is refused.
+    const reach = Math.max(s.max - cutoff, cutoff - s.min);
+    if (h > reach) {
+      throw new CutlineError(
+        `the density bandwidth ${fmt(h)} is wider than the largest distance of a score from the cutoff (${fmt(reach)}); McCrary's standard error needs a bandwidth inside the data`,
+      );
+    }
   } else {
     h = mccraryBandwidth(hist, s, cutoff);
   }
