@@ -26,6 +26,7 @@
 import { SideFit, Window, applyWeights, boundaryWindow } from './boundaryWindow';
 import { CutlineError } from './errors';
 import { KernelName } from './kernels';
+import { gathered } from './residuals';
 
 export interface ComplierOptions {
   bandwidth: number;
@@ -149,18 +150,20 @@ export function complierCdf(
   // unit adds its weight at the first sorted `at` value ≥ Y_i (binary search),
   // then a running sum gives F at every point: O(N log |at|), no sort of the window.
   const bucket = new Float64Array(sortedAt.length + 1);
+  const grid = Float64Array.from(sortedAt);
   for (const [side, s] of [[p.plus, 1], [p.minus, -1]] as const) {
     const w = side.coef1[0];
     const c = (arm === 1 ? s : -s) / p.pi;
+    const d = gathered(side, treated);
+    const y = gathered(side, outcome);
     for (let t = 0; t < w.length; t++) {
-      const i = side.index[t];
-      if (treated[i] !== arm) continue;
-      const y = outcome[i];
+      if (d[t] !== arm) continue;
+      const v = y[t];
       let lo = 0;
-      let hi = sortedAt.length;
+      let hi = grid.length;
       while (lo < hi) {
         const mid = (lo + hi) >> 1;
-        if (sortedAt[mid] < y) lo = mid + 1;
+        if (grid[mid] < v) lo = mid + 1;
         else hi = mid;
       }
       bucket[lo] += c * w[t];
