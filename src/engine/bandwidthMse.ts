@@ -45,25 +45,40 @@ function sideRange(score: ArrayLike<number>, cutoff: number, above: boolean): nu
   return above ? score[order[order.length - 1]] - cutoff : cutoff - score[order[0]];
 }
 
-/** 2 × x² coefficient and its influence terms on one side. */
-function secondDerivative(side: SortedSide & { q2: Float64Array }, values: ArrayLike<number>, sign: number): { m2: number; psi: Float64Array } {
+/**
+ * One side's curvature pieces: m̂'' = Σ 2q₂V for V = Y (and D), and the sums
+ * of products of the influence terms 2q₂e (nn residuals e) that the
+ * regularisation needs — Σψ_Y², Σψ_Yψ_D, Σψ_D² — without storing ψ.
+ */
+function sideCurvature(
+  side: SortedSide & { q2: Float64Array },
+  y: ArrayLike<number>,
+  d?: ArrayLike<number>,
+): { m2y: number; m2d: number; yy: number; yd: number; dd: number } {
   const q2 = side.q2;
-  const e = nnResiduals(side, values);
-  const v = gathered(side, values);
-  const psi = new Float64Array(q2.length);
-  let m2 = 0;
+  const ey = nnResiduals(side, y);
+  const vy = gathered(side, y);
+  let m2y = 0;
+  let yy = 0;
   for (let t = 0; t < q2.length; t++) {
-    m2 += 2 * q2[t] * v[t];
-    psi[t] = sign * 2 * q2[t] * e[t];
+    const w = 2 * q2[t];
+    m2y += w * vy[t];
+    yy += w * w * ey[t] * ey[t];
   }
-  return { m2, psi };
-}
-
-function concat(a: Float64Array, b: Float64Array): Float64Array {
-  const out = new Float64Array(a.length + b.length);
-  out.set(a);
-  out.set(b, a.length);
-  return out;
+  if (!d) return { m2y, m2d: 0, yy, yd: 0, dd: 0 };
+  const ed = nnResiduals(side, d);
+  const vd = gathered(side, d);
+  let m2d = 0;
+  let yd = 0;
+  let dd = 0;
+  for (let t = 0; t < q2.length; t++) {
+    const w = 2 * q2[t];
+    const w2 = w * w;
+    m2d += w * vd[t];
+    yd += w2 * ey[t] * ed[t];
+    dd += w2 * ed[t] * ed[t];
+  }
+  return { m2y, m2d, yy, yd, dd };
 }
 
 export function bandwidthMse(
@@ -93,19 +108,16 @@ export function bandwidthMse(
   const bAbove = pilotB(true);
   const above = curvatureWeights(score, cutoff, bAbove, kernel, true);
   const below = curvatureWeights(score, cutoff, bBelow, kernel, false);
-  const ya = secondDerivative(above, values, 1);
-  const yb = secondDerivative(below, values, -1);
-  let delta = ya.m2 - yb.m2;
-  let psiDelta = concat(ya.psi, yb.psi);
+  const ca = sideCurvature(above, values, d ? treated : undefined);
+  const cb = sideCurvature(below, values, d ? treated : undefined);
+  // Sides are independent: Var(Δ̂) = Σ over both sides of the squared influence terms.
+  let delta = ca.m2y - cb.m2y;
+  let R = ca.yy + cb.yy;
   if (treated && d) {
-    const da = secondDerivative(above, treated, 1);
-    const db = secondDerivative(below, treated, -1);
     const tau = y.estimate / d.estimate;
-    delta = (delta - tau * (da.m2 - db.m2)) / d.estimate;
-    const psiD = concat(da.psi, db.psi);
-    psiDelta = psiDelta.map((v, i) => (v - tau * psiD[i]) / d.estimate);
+    delta = (delta - tau * (ca.m2d - cb.m2d)) / d.estimate;
+    R = (R - 2 * tau * (ca.yd + cb.yd) + tau * tau * (ca.dd + cb.dd)) / (d.estimate * d.estimate);
   }
-  const R = varianceOf(psiDelta);
   const bk = boundaryConstants(kernel, 1, 0).bias;
   const h = Math.pow(A / (bk * bk * (delta * delta + R)), 0.2);
   if (!(h > 0) || !Number.isFinite(h)) {

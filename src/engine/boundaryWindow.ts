@@ -164,9 +164,11 @@ function coordinates(
   let distinct = 0;
   for (let t = 0; t < n; t++) {
     x[t] = score[index[t]] - cutoff;
-    k[t] = kernelWeight(kernel, x[t] / h);
     if (t === 0 || x[t] !== x[t - 1]) distinct++;
   }
+  // The kernel's loop is chosen once, not per unit (window units have |x| < h).
+  if (kernel === 'triangular') for (let t = 0; t < n; t++) k[t] = 1 - Math.abs(x[t] / h);
+  else for (let t = 0; t < n; t++) k[t] = kernelWeight(kernel, x[t] / h);
   return { x, k, distinct };
 }
 
