@@ -31,9 +31,12 @@ function bundled(entry) {
     fresh = false;
   }
   if (!fresh) {
-    require('esbuild').buildSync({
+    // Build in memory, then write a private file and rename it into place:
+    // processes started together (parallel tests) never read a half-written bundle.
+    const result = require('esbuild').buildSync({
       entryPoints: [abs],
       outfile: out,
+      write: false,
       bundle: true,
       platform: 'node',
       target: 'node20',
@@ -41,6 +44,10 @@ function bundled(entry) {
       packages: 'external',
       logLevel: 'error',
     });
+    fs.mkdirSync(path.dirname(out), { recursive: true });
+    const tmp = `${out}.${process.pid}.tmp`;
+    fs.writeFileSync(tmp, result.outputFiles[0].contents);
+    fs.renameSync(tmp, out);
   }
   return out;
 }
