@@ -54,10 +54,14 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
   const n = x.length;
   const q = p + 1;
   const m: number[][] = Array.from({ length: q }, () => new Array<number>(q).fill(0));
-  // Moments in u = x/h for conditioning; Σ k u^(a+b).
+  // Moments in u = x/s, s the window's largest |x| (not h: a bandwidth far beyond the
+  // data would make every u tiny and the normal equations look singular); Σ k u^(a+b).
+  let sc = 0;
+  for (let i = 0; i < n; i++) sc = Math.max(sc, Math.abs(x[i]));
+  if (!(sc > 0)) sc = h;
   const mom = new Array<number>(2 * p + 1).fill(0);
   for (let i = 0; i < n; i++) {
-    const u = x[i] / h;
+    const u = x[i] / sc;
     let pw = k[i];
     for (let a = 0; a <= 2 * p; a++) {
       mom[a] += pw;
@@ -75,11 +79,11 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
   const out = Array.from({ length: q }, (_, j) => new Float64Array(only === undefined || only === j ? n : 0));
   for (let j = 0; j < q; j++) {
     if (only !== undefined && j !== only) continue;
-    // Row j of Γ⁻¹ divided by h^j, as a polynomial in u evaluated by Horner's rule.
-    const c = inv[j].map((v) => v / Math.pow(h, j));
+    // Row j of Γ⁻¹ divided by s^j, as a polynomial in u evaluated by Horner's rule.
+    const c = inv[j].map((v) => v / Math.pow(sc, j));
     const o = out[j];
     for (let i = 0; i < n; i++) {
-      const u = x[i] / h;
+      const u = x[i] / sc;
       let s = c[q - 1];
       for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
       o[i] = s * k[i];
