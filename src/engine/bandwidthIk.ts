@@ -22,6 +22,7 @@
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, olsCoefficients, pilotCovariance, pilotVariance, Pilots, pilotWindow, thirdDerivative } from './bandwidthPilots';
 import { boundaryWindow } from './boundaryWindow';
+import { widenForTies } from './bandwidthTies';
 import { CutlineError } from './errors';
 import { KernelName } from './kernels';
 import { smoothJump } from './smoothJump';
@@ -59,7 +60,7 @@ function sideCurvature(
   nSide: number,
 ): IkSide {
   let h2 = 3.56 * Math.pow(sigma2 / (density * m3 * m3), 1 / 7) * Math.pow(nSide, -1 / 7);
-  if (!Number.isFinite(h2)) h2 = Infinity; // m̂₃ = 0: the whole side
+  if (!(h2 > 0) || !Number.isFinite(h2)) h2 = Infinity; // m̂₃ = 0 or σ̂² = 0: the whole side
   const rows: number[] = [];
   for (let i = 0; i < score.length; i++) {
     const x = score[i] - cutoff;
@@ -115,7 +116,7 @@ export function bandwidthIk(
   let treatedPart: IkBandwidth['treated'];
   if (treated) {
     const d = curvature(score, treated, cutoff, p, band);
-    const win = boundaryWindow(score, cutoff, p.h1, kernel, { quadratic: false });
+    const win = boundaryWindow(score, cutoff, widenForTies(score, cutoff, p.h1, 2).bandwidth, kernel, { quadratic: false });
     const tau = smoothJump(win, values, 'hc0').estimate / smoothJump(win, treated, 'hc0').estimate;
     const covBelow = pilotCovariance(values, treated, p.near.below);
     const covAbove = pilotCovariance(values, treated, p.near.above);

@@ -25,6 +25,7 @@
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, pilotVariance, pilotWindow, thirdDerivative } from './bandwidthPilots';
 import { boundaryWindow, curvatureWeights, SortedSide, sortedOrder } from './boundaryWindow';
+import { widenForTies } from './bandwidthTies';
 import { CutlineError } from './errors';
 import { varianceOf } from './influence';
 import { KernelName } from './kernels';
@@ -89,7 +90,7 @@ export function bandwidthMse(
   treated?: ArrayLike<number>,
 ): MseBandwidth {
   const p = pilotWindow(score, cutoff);
-  const pilotWin = boundaryWindow(score, cutoff, p.h1, kernel, { quadratic: false });
+  const pilotWin = boundaryWindow(score, cutoff, widenForTies(score, cutoff, p.h1, 2).bandwidth, kernel, { quadratic: false });
   const y = smoothJump(pilotWin, values, 'nn');
   const d = treated ? smoothJump(pilotWin, treated, 'nn') : null;
   const psiPilot = d ? ratioPsi(y.psi, d.psi, y.estimate, d.estimate) : y.psi;
@@ -102,7 +103,8 @@ export function bandwidthMse(
     const nSide = above ? p.nAbove : p.nBelow;
     const b = c2 * Math.pow(sigma2 / (p.density * m3 * m3), 1 / 7) * Math.pow(nSide, -1 / 7);
     const range = sideRange(score, cutoff, above) * (1 + 1e-9) + 1e-12;
-    return Number.isFinite(b) && b < range ? b : range;
+    // No curvature (m̂₃ = 0) or no variance (a column constant near the cutoff): the whole side.
+    return b > 0 && Number.isFinite(b) && b < range ? b : range;
   };
   const bBelow = pilotB(false);
   const bAbove = pilotB(true);
