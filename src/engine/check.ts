@@ -24,6 +24,7 @@ import { VarianceName } from './residuals';
 import { applyWeights, boundaryWindow } from './boundaryWindow';
 import { balanceSection, BalanceRow, binnedSeries, BinnedSeries, densitySection, DensitySection } from './designChecks';
 import { bandwidthMse } from './bandwidthMse';
+import { widenForTies } from './bandwidthTies';
 import { complierCdf, complierDensity, complierMeans } from './complierDistributions';
 import { complierGrid } from './complierGrid';
 import { holmAdjust } from './holm';
@@ -200,6 +201,32 @@ function keep<T extends Float64Array | Int32Array>(values: T, rows: Int32Array, 
 
 const fmt = (v: number): string => Number(v.toPrecision(4)).toString();
 
+/**
+ * The validity test's bandwidth (METHODS §4): the mse bandwidth of the take-up
+ * jump times n^(−1/20). When take-up has no sampling variation near the cutoff
+ * (a sharp design: treated is constant on each side) that rule is undefined;
+ * Cutline then uses the estimates' bandwidth times n^(−1/20) and says so. A
+ * value that leaves fewer than 2 distinct scores on a side is widened (bandwidthTies.ts).
+ */
+function testBandwidth(score: Float64Array, treated: Float64Array, cutoff: number, kernel: KernelName, h: number, warnings: string[]): number {
+  const shrink = Math.pow(score.length, -1 / 20);
+  let value: number;
+  try {
+    value = bandwidthMse(score, treated, cutoff, kernel).bandwidth * shrink;
+  } catch (e) {
+    if (!(e instanceof CutlineError)) throw e;
+    value = h * shrink;
+    warnings.push(
+      `the mse bandwidth of the take-up jump cannot be computed (${e.message}); the validity test uses the estimates' bandwidth × n^(−1/20) = ${fmt(value)}`,
+    );
+  }
+  const w = widenForTies(score, cutoff, value, 2);
+  if (w.widened) {
+    warnings.push(`the validity test's bandwidth ${fmt(value)} holds a single score value on a side (mass points); it was widened to ${fmt(w.bandwidth)}`);
+  }
+  return w.bandwidth;
+}
+
 function complierSummary(
   p: Prepared,
   cutoff: number,
@@ -270,7 +297,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     treated: first.treated,
   });
   const h = bw.value;
-  const warnings: string[] = [];
+  const warnings: string[] = [...bw.warnings];
 
   // Take-up on its own rows; its sign decides the eligible side.
   const tk = prepare(input, undefined, false, donut?.mask);
@@ -291,8 +318,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   for (const w of takeupEst.warnings) if (!warnings.includes(w)) warnings.push(w);
 
   // The validity test's bandwidth: undersmoothed mse of take-up (METHODS §4), or the typed one.
-  const testH =
-    options.bandwidth ?? bandwidthMse(tk.score, tk.treated, cutoff, kernel).bandwidth * Math.pow(tk.score.length, -1 / 20);
+  const testH = options.bandwidth ?? testBandwidth(tk.score, tk.treated, cutoff, kernel, h, warnings);
   const multiples = (options.sensitivity ?? DEFAULT_SENSITIVITY).filter((m) => m !== 1);
   const vopts = {
     kernel,
@@ -315,8 +341,14 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     });
     const own = est.warnings.filter((w) => !warnings.includes(w));
     const vp = input.within ? prepare(input, col, true, donut?.mask) : p;
-    const v = validityTest(vp.score, vp.treated, vp.outcome!, cutoff, { ...vopts, bandwidth: testH, cells: vp.cells });
-    const others = validityByBandwidth(vp.score, vp.treated, vp.outcome!, cutoff, testH, multiples, { ...vopts, cells: vp.cells });
+    if (vp.rows.length < p.rows.length) {
+      own.push(
+        `${p.rows.length - vp.rows.length} rows with a missing ${input.within!.name} were left out of the validity test within its cells (METHODS §1: listwise)`,
+      );
+    }
+    const cellLabels = input.within?.labels;
+    const v = validityTest(vp.score, vp.treated, vp.outcome!, cutoff, { ...vopts, bandwidth: testH, cells: vp.cells, cellLabels });
+    const others = validityByBandwidth(vp.score, vp.treated, vp.outcome!, cutoff, testH, multiples, { ...vopts, cells: vp.cells, cellLabels });
     const at1: ValidityAtBandwidth = {
       multiple: 1,
       bandwidth: testH,
@@ -331,12 +363,12 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     if (est.takeup.estimate > 0) {
       compliers = complierSummary(p, cutoff, { bandwidth: h, kernel, sign }, options.bins === true);
       for (const [arm, list] of [['treated', compliers.decreasing_treated], ['untreated', compliers.decreasing_untreated]] as const) {
-        for (const st of list) {
-          own.push(
-            `the implied distribution of ${arm} compliers' outcomes falls between ${fmt(st.from)} and ${fmt(st.to)}: ` +
-              'a probability cannot fall, so this is the picture of a violation of the design (or of noise; see the validity test)',
-          );
-        }
+        if (list.length === 0) continue;
+        const where = list.map((st) => `${fmt(st.from)} to ${fmt(st.to)}`).join(', ');
+        own.push(
+          `the implied distribution of ${arm} compliers' outcomes falls (from ${where}): a probability cannot fall, ` +
+            'so this is the picture of a violation of the design — or of noise; the validity test says which is likely',
+        );
       }
     }
     const result: OutcomeResult = {

@@ -49,6 +49,8 @@ export interface ValidityOptions {
   sign?: 1 | -1;
   /** Discrete covariate cell id per data row (test within cells). */
   cells?: Int32Array;
+  /** The cells' names for messages (cellLabels[id]); ids are shown when absent. */
+  cellLabels?: string[];
   /** Subset of data rows to use. */
   rows?: Int32Array;
 }
@@ -171,6 +173,12 @@ function momentsFor(
   return validityMoments(win, cls, treated, outcome, r.trim, r.sign);
 }
 
+/** A cell's name for messages: its label when given, else its id. */
+function cellName(o: ValidityOptions, id: number): string {
+  const label = o.cellLabels?.[id];
+  return label === undefined ? String(id) : JSON.stringify(label);
+}
+
 /** The moment sets (one per covariate cell, ascending ids) and their labels. */
 export function validityMomentSets(
   score: ArrayLike<number>,
@@ -192,7 +200,7 @@ export function validityMomentSets(
     else byCell.set(cells[i], [i]);
   }
   const ids = [...byCell.keys()].sort((a, b) => a - b);
-  const sets = ids.map((id) => momentsFor(score, treated, outcome, cutoff, o, r, Int32Array.from(byCell.get(id)!), `within cell ${id}`));
+  const sets = ids.map((id) => momentsFor(score, treated, outcome, cutoff, o, r, Int32Array.from(byCell.get(id)!), `within cell ${cellName(o, id)}`));
   return { sets, cellIds: ids };
 }
 
@@ -250,7 +258,7 @@ export function validityTest(
     const nm = m.minus.w.length;
     counts[plusName] += np;
     counts[minusName] += nm;
-    const where = cellIds ? ` in cell ${cellIds[g]}` : '';
+    const where = cellIds ? ` in cell ${cellName(options, cellIds[g])}` : '';
     for (const [cnt, name] of [[nm, minusName], [np, plusName]] as const)
       if (cnt < 50)
         warnings.push(`only ${cnt} units ${name} the cutoff${where} inside the window (fewer than 50): the bootstrap p-value may be inaccurate`);
