@@ -4,7 +4,8 @@ import fc from 'fast-check';
 import { fastNumber, MISSING, SLOW } from '../src/input/fastNumber';
 
 function read(s: string): number | typeof SLOW | typeof MISSING {
-  return fastNumber(s, 0, s.length);
+  const b = new TextEncoder().encode(s);
+  return fastNumber(b, 0, b.length);
 }
 
 describe('fastNumber', () => {

@@ -30,5 +30,5 @@ export async function readTable(file: string, sheet?: string): Promise<Table> {
   if (zip || ext === '.xlsx' || ext === '.xlsm') return parseXlsx(bytes, sheet, file);
   if (sheet !== undefined) throw new CutlineError(`--sheet applies to XLSX workbooks; ${file} is read as CSV`);
   if (bytes.includes(0)) throw new CutlineError(`${file} is neither a CSV text nor an XLSX workbook`);
-  return parseCsv(bytes.toString('utf8'), file);
+  return parseCsv(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length), file);
 }

@@ -109,8 +109,48 @@ export function sortedOrder(score: ArrayLike<number>): Int32Array {
     for (let i = 0; i < all.length; i++) all[i] = i;
     order = argsortBy(score, all);
     sortedCache.set(score as object, order);
+    orderByBuffer.set(order.buffer, order);
   }
   return order;
+}
+
+// Windows of whole arrays are views (subarrays) of the sorted order, so a
+// window's units are a contiguous run of it. A column gathered once into
+// sorted order then serves every window as a slice: sequential reads instead
+// of a random gather from the data order for each window.
+const orderByBuffer = new WeakMap<ArrayBufferLike, Int32Array>();
+const sortedColumns = new WeakMap<Int32Array, WeakMap<object, Float64Array>>();
+
+/** values in the sorted order of the score array whose order this is. */
+function sortedColumn(order: Int32Array, values: ArrayLike<number>): Float64Array {
+  let byValues = sortedColumns.get(order);
+  if (!byValues) {
+    byValues = new WeakMap();
+    sortedColumns.set(order, byValues);
+  }
+  let col = byValues.get(values as object);
+  if (!col) {
+    col = new Float64Array(order.length);
+    for (let t = 0; t < order.length; t++) col[t] = values[order[t]];
+    byValues.set(values as object, col);
+  }
+  return col;
+}
+
+/**
+ * values[index[t]] for a window's positions: a slice of the sorted column when
+ * the positions are a view of a sorted order, else a plain gather (a copy
+ * either way is never needed: callers only read it).
+ */
+export function valuesAt(index: Int32Array, values: ArrayLike<number>): Float64Array {
+  const order = orderByBuffer.get(index.buffer);
+  if (order && index.length > 0) {
+    const start = (index.byteOffset - order.byteOffset) / Int32Array.BYTES_PER_ELEMENT;
+    return sortedColumn(order, values).subarray(start, start + index.length);
+  }
+  const out = new Float64Array(index.length);
+  for (let t = 0; t < index.length; t++) out[t] = values[index[t]];
+  return out;
 }
 
 /** First position in the sorted order whose score is ≥ v (or > v when strict). */
@@ -151,7 +191,8 @@ function windowPositions(score: ArrayLike<number>, cutoff: number, h: number, ro
   let e = lowerBound(score, order, cutoff + h, false);
   while (e > c && !(score[order[e - 1]] - cutoff < h)) e--;
   while (e < order.length && score[order[e]] - cutoff < h) e++;
-  return { above: order.slice(c, e), below: order.slice(Math.min(a, c), c) };
+  // Views, not copies: see valuesAt.
+  return { above: order.subarray(c, e), below: order.subarray(Math.min(a, c), c) };
 }
 
 /** x = R − c, kernel weights and the count of distinct scores of window units sorted by score. */
@@ -163,11 +204,12 @@ function coordinates(
   index: Int32Array,
 ): { x: Float64Array; k: Float64Array; distinct: number } {
   const n = index.length;
+  const r = valuesAt(index, score);
   const x = new Float64Array(n);
   const k = new Float64Array(n);
   let distinct = 0;
   for (let t = 0; t < n; t++) {
-    x[t] = score[index[t]] - cutoff;
+    x[t] = r[t] - cutoff;
     if (t === 0 || x[t] !== x[t - 1]) distinct++;
   }
   // The kernel's loop is chosen once, not per unit (window units have |x| < h).

@@ -11,7 +11,7 @@
  *   supplement). Units are sorted by score; a neighbour tie in distance goes
  *   to the unit on the left (lower score), Cutline's deterministic choice.
  */
-import { SideFit, SortedSide } from './boundaryWindow';
+import { SideFit, SortedSide, valuesAt } from './boundaryWindow';
 
 export type VarianceName = 'hc0' | 'hc1' | 'nn' | 'cluster';
 export const VARIANCE_NAMES: readonly VarianceName[] = ['hc0', 'hc1', 'nn', 'cluster'];
@@ -55,9 +55,7 @@ export function gathered(side: SortedSide, values: ArrayLike<number>): Float64Ar
   }
   let v = bySide.get(values as object);
   if (!v) {
-    const { index } = side;
-    v = new Float64Array(index.length);
-    for (let t = 0; t < index.length; t++) v[t] = values[index[t]];
+    v = valuesAt(side.index, values);
     bySide.set(values as object, v);
   }
   return v;

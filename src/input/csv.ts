@@ -1,11 +1,13 @@
 /**
- * CSV text to a Table (RFC 4180). A text with a quote character anywhere is
- * parsed by Papa Parse, a well-kept CSV parser. A text with no quote
- * character cannot hold a quoted field, so RFC 4180 reduces to lines split at
- * CR LF or LF and fields split at the delimiter: Cutline scans such texts
- * itself, recording field offsets only, because Papa Parse needs about 1.5 s
- * for a million rows here and the whole check has a 1 s budget.
- * test/csv.test.ts checks the two paths agree on random texts.
+ * CSV text (a string, or UTF-8 bytes as read from a file) to a Table
+ * (RFC 4180). A text with a quote character anywhere is parsed by Papa Parse,
+ * a well-kept CSV parser. A text with no quote character cannot hold a quoted
+ * field, so RFC 4180 reduces to lines split at CR LF or LF and fields split at
+ * the delimiter: Cutline scans such texts itself, on the bytes, recording
+ * field offsets only (ASCII delimiters and digits never occur inside a UTF-8
+ * multibyte character), because Papa Parse needs about 1.5 s for a million
+ * rows here and the whole check has a 1 s budget. test/csv.test.ts checks the
+ * two paths agree on random texts.
  *
  * The delimiter is a comma, or a semicolon or tab when the header line holds
  * one of those and no comma. A byte-order mark is dropped. A blank line in
@@ -24,17 +26,23 @@ function detectDelimiter(headerLine: string): string {
   return ',';
 }
 
-export function parseCsv(input: string, source = 'the CSV file'): Table {
-  const text = input.charCodeAt(0) === 0xfeff ? input.slice(1) : input;
-  if (text.trim() === '') throw new CutlineError(`${source} is empty`);
-  const firstEol = text.indexOf('\n');
-  const headerLine = (firstEol < 0 ? text : text.slice(0, firstEol)).replace(/\r$/, '');
+export function parseCsv(input: string | Uint8Array, source = 'the CSV file'): Table {
+  let bytes = typeof input === 'string' ? new TextEncoder().encode(input) : input;
+  if (bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf) bytes = bytes.subarray(3);
+  let nonBlank = false;
+  for (let i = 0; i < bytes.length && !nonBlank; i++) nonBlank = !(bytes[i] === 32 || bytes[i] === 9 || bytes[i] === 10 || bytes[i] === 13);
+  if (!nonBlank) throw new CutlineError(`${source} is empty`);
+  let firstEol = bytes.indexOf(10);
+  if (firstEol < 0) firstEol = bytes.length;
+  const headerLine = decoder.decode(bytes.subarray(0, firstEol)).replace(/\r$/, '');
   const delim = detectDelimiter(headerLine);
-  const table = text.includes('"') ? parseWithPapa(text, delim, source) : scanPlain(text, delim, source);
+  const table = bytes.indexOf(34) >= 0 ? parseWithPapa(decoder.decode(bytes), delim, source) : scanPlain(bytes, delim, source);
   if (table.header.every((h) => h === '')) throw new CutlineError(`${source} has no header line`);
   if (table.rowCount === 0) throw new CutlineError(`${source} has a header but no data rows`);
   return table;
 }
+
+const decoder = new TextDecoder('utf-8');
 
 function parseWithPapa(text: string, delim: string, source: string): Table {
   const res = Papa.parse<string[]>(text, { delimiter: delim, skipEmptyLines: false });
@@ -59,20 +67,21 @@ function checkWidth(width: number, expected: number, row: number, source: string
   }
 }
 
-function scanPlain(text: string, delim: string, source: string): Table {
+function scanPlain(text: Uint8Array, delim: string, source: string): Table {
   let end = text.length;
   // Ignore trailing blank lines.
-  while (end > 0 && (text.charCodeAt(end - 1) === 10 || text.charCodeAt(end - 1) === 13)) end--;
+  while (end > 0 && (text[end - 1] === 10 || text[end - 1] === 13)) end--;
   const d = delim.charCodeAt(0);
-  let pos = text.indexOf('\n');
+  let pos = text.indexOf(10);
   if (pos < 0 || pos >= end) pos = end;
-  const header = text.slice(0, pos).replace(/\r$/, '').split(delim).map((h) => h.trim());
+  const header = decoder.decode(text.subarray(0, pos)).replace(/\r$/, '').split(delim).map((h) => h.trim());
   const w = header.length;
   // offsets[r*(w+1)+c] = start of field c in row r; entry w = end of the row + 1.
   let cap = 1 << 16;
   let offsets = new Int32Array(cap * (w + 1));
   let rows = 0;
   let i = pos + 1;
+  // One pass over the bytes: a line ends at LF (a CR before it is dropped), fields at the delimiter.
   while (i <= end && pos < end) {
     if (rows === cap) {
       cap *= 2;
@@ -80,29 +89,31 @@ function scanPlain(text: string, delim: string, source: string): Table {
       grown.set(offsets);
       offsets = grown;
     }
-    let eol = text.indexOf('\n', i);
-    if (eol < 0 || eol > end) eol = end;
-    let lineEnd = eol;
-    if (lineEnd > i && text.charCodeAt(lineEnd - 1) === 13) lineEnd--;
     const base = rows * (w + 1);
+    offsets[base] = i;
+    let c = 0;
+    let j = i;
+    for (; j < end; j++) {
+      const b = text[j];
+      if (b === 10) break;
+      if (b === d) {
+        c++;
+        if (c < w) offsets[base + c] = j + 1;
+      }
+    }
+    let lineEnd = j;
+    if (lineEnd > i && text[lineEnd - 1] === 13) lineEnd--;
     if (lineEnd === i) {
       // blank line: every field empty
-      for (let c = 0; c <= w; c++) offsets[base + c] = i;
+      for (let f = 0; f <= w; f++) offsets[base + f] = i;
       offsets[base + w] = i + 1;
     } else {
-      let c = 0;
-      offsets[base] = i;
-      for (let j = i; j < lineEnd; j++) {
-        if (text.charCodeAt(j) === d) {
-          c++;
-          if (c < w) offsets[base + c] = j + 1;
-        }
-      }
       if (c + 1 !== w) checkWidth(c + 1, w, rows + 2, source, false);
-      offsets[base + w] = lineEnd + 1;
+      // A CR before the LF belongs to no field.
+      if (c + 1 === w) offsets[base + w] = lineEnd + 1;
     }
     rows++;
-    i = eol + 1;
+    i = j + 1;
   }
   return {
     header,
@@ -110,7 +121,7 @@ function scanPlain(text: string, delim: string, source: string): Table {
     firstRow: 2,
     get: (r, c) => {
       const base = r * (w + 1);
-      return text.slice(offsets[base + c], offsets[base + c + 1] - 1);
+      return decoder.decode(text.subarray(offsets[base + c], offsets[base + c + 1] - 1));
     },
     fastNumber: (r, c) => {
       const base = r * (w + 1);
