@@ -12,7 +12,7 @@
  */
 import { CutlineError } from './errors';
 import { mean, sampleCovariance, sampleVariance } from './describe';
-import { sortedOrder } from './boundaryWindow';
+import { sortedOrder, valuesAt } from './boundaryWindow';
 import { invertSmall } from './linalg';
 
 export interface Pilots {
@@ -164,8 +164,9 @@ export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<numb
   if (!xtx || xtx.scale !== scale || xtx.cutoff !== cutoff) {
     const m = new Float64Array(7); // Σ u^k, k = 0..6
     const ms = new Float64Array(4); // Σ_{R ≥ c} u^k, k = 0..3
+    const r = valuesAt(band, score);
     for (let t = 0; t < band.length; t++) {
-      const u = (score[band[t]] - cutoff) / scale;
+      const u = (r[t] - cutoff) / scale;
       const u2 = u * u;
       const u3 = u2 * u;
       m[0] += 1;
@@ -194,10 +195,11 @@ export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<numb
   }
   if (!xtx.inv) throw new CutlineError('the scores between the two side medians take too few values for the pilot cubic fit');
   const xty = [0, 0, 0, 0, 0];
+  const r = valuesAt(band, score);
+  const vs = valuesAt(band, values);
   for (let t = 0; t < band.length; t++) {
-    const i = band[t];
-    const u = (score[i] - cutoff) / scale;
-    const v = values[i];
+    const u = (r[t] - cutoff) / scale;
+    const v = vs[t];
     const uv = u * v;
     xty[0] += v;
     if (u >= 0) xty[1] += v;

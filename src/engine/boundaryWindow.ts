@@ -60,12 +60,33 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
   for (let i = 0; i < n; i++) sc = Math.max(sc, Math.abs(x[i]));
   if (!(sc > 0)) sc = h;
   const mom = new Array<number>(2 * p + 1).fill(0);
-  for (let i = 0; i < n; i++) {
-    const u = x[i] / sc;
-    let pw = k[i];
-    for (let a = 0; a <= 2 * p; a++) {
-      mom[a] += pw;
-      pw *= u;
+  if (p <= 2) {
+    // Unrolled moments Σ k uʲ, j ≤ 4 (the only degrees the engine fits).
+    let m0 = 0;
+    let m1 = 0;
+    let m2 = 0;
+    let m3 = 0;
+    let m4 = 0;
+    for (let i = 0; i < n; i++) {
+      const u = x[i] / sc;
+      const ku = k[i] * u;
+      const ku2 = ku * u;
+      m0 += k[i];
+      m1 += ku;
+      m2 += ku2;
+      m3 += ku2 * u;
+      m4 += ku2 * u * u;
+    }
+    const all = [m0, m1, m2, m3, m4];
+    for (let a = 0; a <= 2 * p; a++) mom[a] = all[a];
+  } else {
+    for (let i = 0; i < n; i++) {
+      const u = x[i] / sc;
+      let pw = k[i];
+      for (let a = 0; a <= 2 * p; a++) {
+        mom[a] += pw;
+        pw *= u;
+      }
     }
   }
   for (let a = 0; a < q; a++) for (let b = 0; b < q; b++) m[a][b] = mom[a + b];
@@ -82,11 +103,22 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
     // Row j of Γ⁻¹ divided by s^j, as a polynomial in u evaluated by Horner's rule.
     const c = inv[j].map((v) => v / Math.pow(sc, j));
     const o = out[j];
-    for (let i = 0; i < n; i++) {
-      const u = x[i] / sc;
-      let s = c[q - 1];
-      for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
-      o[i] = s * k[i];
+    if (q === 2) {
+      const [c0, c1] = c;
+      for (let i = 0; i < n; i++) o[i] = (c0 + c1 * (x[i] / sc)) * k[i];
+    } else if (q === 3) {
+      const [c0, c1, c2] = c;
+      for (let i = 0; i < n; i++) {
+        const u = x[i] / sc;
+        o[i] = (c0 + u * (c1 + u * c2)) * k[i];
+      }
+    } else {
+      for (let i = 0; i < n; i++) {
+        const u = x[i] / sc;
+        let s = c[q - 1];
+        for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
+        o[i] = s * k[i];
+      }
     }
   }
   return out;
