@@ -16,7 +16,7 @@
  */
 import Papa from 'papaparse';
 import { CutlineError } from '../engine/errors';
-import { fastNumber, MISSING } from './fastNumber';
+import { decimalOrNaN, fastNumber, isBlank } from './fastNumber';
 import { Table } from './table';
 
 function detectDelimiter(headerLine: string): string {
@@ -132,9 +132,11 @@ function scanPlain(text: Uint8Array, delim: string, source: string): Table {
       const missing = new Uint8Array(rows);
       const slow: number[] = [];
       for (let r = 0, base = c; r < rows; r++, base += w + 1) {
-        const f = fastNumber(text, offsets[base], offsets[base + 1] - 1);
-        if (typeof f === 'number') values[r] = f;
-        else if (f === MISSING) missing[r] = 1;
+        const a = offsets[base];
+        const b = offsets[base + 1] - 1;
+        const f = decimalOrNaN(text, a, b);
+        if (f === f) values[r] = f;
+        else if (isBlank(text, a, b)) missing[r] = 1;
         else slow.push(r);
       }
       return { values, missing, slow: Int32Array.from(slow) };

@@ -12,10 +12,28 @@ export const MISSING = Symbol('missing');
 
 const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 
+/** fastNumber's answer, or the reason it has none. */
 export function fastNumber(text: Uint8Array, start: number, end: number): number | typeof SLOW | typeof MISSING {
+  const v = decimalOrNaN(text, start, end);
+  if (v === v) return v;
+  return isBlank(text, start, end) ? MISSING : SLOW;
+}
+
+/** True when the field holds only blanks (or nothing). */
+export function isBlank(text: Uint8Array, start: number, end: number): boolean {
+  for (let i = start; i < end; i++) if (!(text[i] === 32 || text[i] === 9 || text[i] === 13)) return false;
+  return true;
+}
+
+/**
+ * The double of a plain decimal field, or NaN when the field is anything
+ * else (blank, a marker, a word, too many digits): one return type, so the
+ * hot loop never boxes its numbers.
+ */
+export function decimalOrNaN(text: Uint8Array, start: number, end: number): number {
   while (start < end && (text[start] === 32 || text[start] === 9)) start++;
   while (end > start && (text[end - 1] === 32 || text[end - 1] === 9 || text[end - 1] === 13)) end--;
-  if (start === end) return MISSING;
+  if (start === end) return NaN;
   let i = start;
   let neg = false;
   let c = text[i];
@@ -36,16 +54,16 @@ export function fastNumber(text: Uint8Array, start: number, end: number): number
         if (dot) scale--;
         continue;
       }
-      if (++significant > 15) return SLOW;
+      if (++significant > 15) return NaN;
       m = m * 10 + (c - 48);
       if (dot) scale--;
     } else if (c === 46 && !dot) {
       dot = true;
     } else break;
   }
-  if (digits === 0) return SLOW;
+  if (digits === 0) return NaN;
   if (i < end) {
-    if ((c | 32) !== 101) return SLOW;
+    if ((c | 32) !== 101) return NaN;
     i++;
     let eneg = false;
     c = text[i];
@@ -57,20 +75,20 @@ export function fastNumber(text: Uint8Array, start: number, end: number): number
     let edigits = 0;
     for (; i < end; i++) {
       c = text[i];
-      if (c < 48 || c > 57) return SLOW;
+      if (c < 48 || c > 57) return NaN;
       e = e * 10 + (c - 48);
-      if (++edigits > 4) return SLOW;
+      if (++edigits > 4) return NaN;
     }
-    if (edigits === 0) return SLOW;
+    if (edigits === 0) return NaN;
     scale += eneg ? -e : e;
   }
   if (m === 0) return neg ? -0 : 0;
   let v: number;
   if (scale >= 0) {
-    if (scale > 22) return SLOW;
+    if (scale > 22) return NaN;
     v = m * POW10[scale];
   } else {
-    if (scale < -22) return SLOW;
+    if (scale < -22) return NaN;
     v = m / POW10[-scale];
   }
   return neg ? -v : v;
