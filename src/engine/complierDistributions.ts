@@ -79,11 +79,11 @@ function checkWindow(win: Window, treated: ArrayLike<number>, outcome: ArrayLike
   const plus = sign === 1 ? win.above : win.below;
   const minus = sign === 1 ? win.below : win.above;
   for (const side of [plus, minus]) {
-    const idx = side.index;
-    for (let t = 0; t < idx.length; t++) {
-      const i = idx[t];
-      if (treated[i] !== 0 && treated[i] !== 1) throw new CutlineError(`treated must be 0 or 1, got ${treated[i]} at row ${i + 1}`);
-      if (!Number.isFinite(outcome[i])) throw new CutlineError(`outcome is not a finite number at row ${i + 1}`);
+    const d = gathered(side, treated);
+    const y = gathered(side, outcome);
+    for (let t = 0; t < d.length; t++) {
+      if (d[t] !== 0 && d[t] !== 1) throw new CutlineError(`treated must be 0 or 1, got ${d[t]} at row ${side.index[t] + 1}`);
+      if (!Number.isFinite(y[t])) throw new CutlineError(`outcome is not a finite number at row ${side.index[t] + 1}`);
     }
   }
   const pi = applyWeights(plus.coef1[0], plus.index, treated) - applyWeights(minus.coef1[0], minus.index, treated);
@@ -268,12 +268,13 @@ export function complierMeans(
   // Intercepts of Y·1{D=1} and Y·1{D=0} on each side, in one pass per side.
   const sums = (side: SideFit): [number, number] => {
     const w = side.coef1[0];
+    const d = gathered(side, treated);
+    const y = gathered(side, outcome);
     let treatedSum = 0;
     let untreatedSum = 0;
     for (let t = 0; t < w.length; t++) {
-      const i = side.index[t];
-      if (treated[i] === 1) treatedSum += w[t] * outcome[i];
-      else untreatedSum += w[t] * outcome[i];
+      if (d[t] === 1) treatedSum += w[t] * y[t];
+      else untreatedSum += w[t] * y[t];
     }
     return [treatedSum, untreatedSum];
   };

@@ -7,6 +7,7 @@
  */
 import { boundaryWindow } from './boundaryWindow';
 import { KernelName } from './kernels';
+import { gathered } from './residuals';
 
 export const COMPLIER_GRID_POINTS = 25;
 
@@ -14,7 +15,10 @@ export function complierGrid(score: ArrayLike<number>, outcome: ArrayLike<number
   const win = boundaryWindow(score, cutoff, bandwidth, kernel, { quadratic: false });
   const ys = new Float64Array(win.above.index.length + win.below.index.length);
   let u = 0;
-  for (const side of [win.above, win.below]) for (let t = 0; t < side.index.length; t++) ys[u++] = outcome[side.index[t]];
+  for (const side of [win.above, win.below]) {
+    ys.set(gathered(side, outcome), u);
+    u += side.index.length;
+  }
   ys.sort();
   const distinct: number[] = [];
   for (let t = 0; t < ys.length && distinct.length <= COMPLIER_GRID_POINTS; t++) if (t === 0 || ys[t] !== ys[t - 1]) distinct.push(ys[t]);

@@ -21,6 +21,7 @@
  * bin, then last bin.
  */
 import { SideFit, Window } from './boundaryWindow';
+import { gathered } from './residuals';
 import { IntervalClass, binOf } from './intervalClass';
 
 /** Per-side cell sums; cell = arm-1 bins 0..G′−1, then arm-0 bins G′..2G′−1. */
@@ -80,9 +81,10 @@ function sideSums(side: SideFit, cls: IntervalClass, treated: ArrayLike<number>,
     w: new Float64Array(n),
     wx: new Float64Array(n),
   };
+  const ys = gathered(side, outcome);
+  const ds = gathered(side, treated);
   for (let t = 0; t < n; t++) {
-    const i = side.index[t];
-    const c = binOf(cls, outcome[i]) + (treated[i] === 1 ? 0 : G);
+    const c = binOf(cls, ys[t]) + (ds[t] === 1 ? 0 : G);
     const w = om[t];
     const x = side.x[t];
     const w2 = w * w;

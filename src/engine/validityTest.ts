@@ -30,6 +30,7 @@ import { boundaryWindow } from './boundaryWindow';
 import { CutlineError } from './errors';
 import { intervalClass } from './intervalClass';
 import { KernelName } from './kernels';
+import { gathered } from './residuals';
 import { MultiplierName, bootstrapMaxima, selection } from './validityBootstrap';
 import { MomentSet, takeupOf, validityMoments } from './validityMoments';
 
@@ -163,7 +164,10 @@ function momentsFor(
     );
   const ys = new Float64Array(win.above.index.length + win.below.index.length);
   let u = 0;
-  for (const side of [win.above, win.below]) for (let t = 0; t < side.index.length; t++) ys[u++] = outcome[side.index[t]];
+  for (const side of [win.above, win.below]) {
+    ys.set(gathered(side, outcome), u);
+    u += side.index.length;
+  }
   const cls = intervalClass(ys, r.grid);
   if (cls.distinct < 2)
     throw new CutlineError(
