@@ -115,16 +115,8 @@ export interface ComplierSummary {
   density_bandwidth?: number;
 }
 
-export interface EstimateSummary {
-  estimate: number;
-  se: number;
-  ci: [number, number];
-  ci_robust: [number, number];
-  pvalue: number;
-  estimate_robust: number;
-  se_robust: number;
-  pvalue_conventional: number;
-}
+/** Every estimate of a check carries the fields of estimate.ts. */
+export type EstimateSummary = Estimate;
 
 export interface OutcomeResult {
   name: string;
@@ -154,18 +146,6 @@ export interface CheckResult {
   warnings: string[];
 }
 
-function summary(e: Estimate): EstimateSummary {
-  return {
-    estimate: e.estimate,
-    se: e.se,
-    ci: e.ci,
-    ci_robust: e.ci_robust,
-    pvalue: e.pvalue,
-    estimate_robust: e.estimate_robust,
-    se_robust: e.se_robust,
-    pvalue_conventional: e.pvalue_conventional,
-  };
-}
 
 export interface Prepared {
   rows: Int32Array;
@@ -375,9 +355,9 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
       name: col.name,
       rows: { used: p.rows.length, dropped: p.dropped },
       window: est.counts,
-      takeup: summary(est.takeup),
-      jump: summary(est.jump),
-      effect: summary(est.effect),
+      takeup: est.takeup,
+      jump: est.jump,
+      effect: est.effect,
       validity: {
         statistic: v.statistic,
         pvalue: v.pvalue,
@@ -442,7 +422,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
       dropped: donut ? completeRows(n, [input.score.missing, input.treated.missing, input.outcomes[0].missing, input.cluster?.missing]).dropped : first.dropped,
     },
     bandwidth: { value: h, rule: bw.rule, kernel, variance, window: takeupEst.counts },
-    takeup: summary(takeupEst.takeup),
+    takeup: takeupEst.takeup,
     test_bandwidth: { value: testH, rule: options.bandwidth !== undefined ? 'typed' : 'undersmoothed mse' },
     outcomes,
     density,

@@ -15,8 +15,8 @@ import { BandwidthRule, chooseBandwidth } from './bandwidth';
 import { binnedMeans, BinnedMeansResult } from './binnedMeans';
 import { boundaryWindow } from './boundaryWindow';
 import { permutationBalanceTest } from './covariatePermutation';
-import { localPolynomialDensityTest } from './densityLocalPolynomial';
-import { mccraryTest } from './densityMcCrary';
+import { localPolynomialDensityTest, LocalPolynomialDensityResult } from './densityLocalPolynomial';
+import { mccraryTest, McCraryResult } from './densityMcCrary';
 import { CutlineError } from './errors';
 import { fitLine, FitLineSide } from './fitLine';
 import { holmAdjust } from './holm';
@@ -32,17 +32,11 @@ export interface DensitySection {
   log_ratio: number;
   se: number;
   pvalue: number;
-  mccrary?: { log_ratio: number; se: number; pvalue: number; bin: number; bandwidth: number; density_above: number; density_below: number };
-  local_polynomial?: {
-    log_ratio: number;
-    se: number;
-    pvalue: number;
-    bandwidth: number;
-    density_above: number;
-    density_below: number;
-    ci_above: [number, number];
-    ci_below: [number, number];
-  };
+  mccrary?: Pick<McCraryResult, 'log_ratio' | 'se' | 'pvalue' | 'bin' | 'bandwidth' | 'density_above' | 'density_below'>;
+  local_polynomial?: Pick<
+    LocalPolynomialDensityResult,
+    'log_ratio' | 'se' | 'pvalue' | 'bandwidth' | 'density_above' | 'density_below' | 'ci_above' | 'ci_below'
+  >;
   caution: string;
   warnings: string[];
 }
