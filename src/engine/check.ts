@@ -21,7 +21,7 @@ import { estimatesAtCutoff } from './estimatesAtCutoff';
 import { KernelName } from './kernels';
 import { compact, completeRows } from './listwise';
 import { VarianceName } from './residuals';
-import { applyWeights, boundaryWindow } from './boundaryWindow';
+import { applyWeights, boundaryWindow, sortedOrder } from './boundaryWindow';
 import { balanceSection, BalanceRow, binnedSeries, BinnedSeries, densitySection, DensitySection } from './designChecks';
 import { bandwidthMse } from './bandwidthMse';
 import { widenForTies } from './bandwidthTies';
@@ -244,14 +244,14 @@ function requireVaries(v: Float64Array, what: string, why: string): void {
   throw new CutlineError(`${what} is constant (every used row is ${v[0]}): ${why}`);
 }
 
+/** Read off the sorted order that every window uses anyway: its ends and where the cutoff falls. */
 function checkSides(score: Float64Array, cutoff: number): void {
-  let same = true;
-  for (let i = 1; i < score.length && same; i++) same = score[i] === score[0];
-  if (same) throw new CutlineError(`--score: the score is constant (every used row is ${score[0]}); there is no discontinuity to study`);
-  let below = 0;
-  for (let i = 0; i < score.length; i++) if (score[i] < cutoff) below++;
-  if (below === 0) throw new CutlineError(`--cutoff: no unit has a score below the cutoff ${cutoff}`);
-  if (below === score.length) throw new CutlineError(`--cutoff: no unit has a score at or above the cutoff ${cutoff}`);
+  const order = sortedOrder(score);
+  const lo = score[order[0]];
+  const hi = score[order[order.length - 1]];
+  if (lo === hi) throw new CutlineError(`--score: the score is constant (every used row is ${lo}); there is no discontinuity to study`);
+  if (!(lo < cutoff)) throw new CutlineError(`--cutoff: no unit has a score below the cutoff ${cutoff}`);
+  if (!(hi >= cutoff)) throw new CutlineError(`--cutoff: no unit has a score at or above the cutoff ${cutoff}`);
 }
 
 export function runCheck(input: CheckInput, options: CheckOptions): CheckResult {
