@@ -95,13 +95,6 @@ function checkWindow(win: Window, treated: ArrayLike<number>, outcome: ArrayLike
   return { win, plus, minus, pi, sign: sign as 1 | -1 };
 }
 
-function intercept(side: SideFit, v: (i: number) => number): number {
-  const w = side.coef1[0];
-  let s = 0;
-  for (let t = 0; t < w.length; t++) s += w[t] * v(side.index[t]);
-  return s;
-}
-
 function checkArm(arm: number): void {
   if (arm !== 0 && arm !== 1) throw new CutlineError(`arm must be 1 (treated compliers) or 0 (untreated compliers), got ${String(arm)}`);
 }
