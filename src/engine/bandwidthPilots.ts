@@ -11,7 +11,7 @@
  *   lies between the median score below and the median score above the cutoff.
  */
 import { CutlineError } from './errors';
-import { mean, sampleCovariance, sampleVariance } from './describe';
+import { sampleCovariance, sampleVariance } from './describe';
 import { sortedOrder, valuesAt } from './boundaryWindow';
 import { invertSmall } from './linalg';
 
@@ -212,4 +212,3 @@ export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<numb
   return (6 * b4) / (scale * scale * scale);
 }
 
-export { mean };
