@@ -300,6 +300,11 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   // The validity test's bandwidth: undersmoothed mse of take-up (METHODS §4), or the typed one.
   const testH = options.bandwidth ?? testBandwidth(tk.score, tk.treated, cutoff, kernel, h, warnings);
   const multiples = (options.sensitivity ?? DEFAULT_SENSITIVITY).filter((m) => m !== 1);
+  if (variance === 'cluster') {
+    warnings.push(
+      'the outcome–treatment test treats units as independent (hc0 variances and unit-level multipliers, METHODS §4); the cluster variance applies to the estimates only',
+    );
+  }
   const vopts = {
     kernel,
     sign,
