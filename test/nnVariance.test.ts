@@ -80,3 +80,17 @@ describe.each(fixture.cases.map((c) => [c.name, c] as const))('%s, unit by unit'
     expect(worst).toBeLessThan(1e-10); // source: NumPy, brute-force nearest neighbours, make_nn.py
   });
 });
+
+test('nn standard errors do not depend on the order of the rows (all ties at the 3rd distance are taken)', () => {
+  // Property of the rule itself (src/engine/residuals.ts); the data: the tied grid of make_nn.py.
+  const D = readCsv('data_tied.csv');
+  const n = D.score.length;
+  const perm = Array.from({ length: n }, (_, i) => (i * 17 + 5) % n); // 17 is coprime with n = 41
+  const shuffled = (a: Float64Array): Float64Array => Float64Array.from(perm, (p) => a[p]);
+  for (const kernel of ['triangular', 'uniform'] as const) {
+    const a = jumpAt(boundaryWindow(D.score, 0, 3.5, kernel), D.y_row, { variance: 'nn' });
+    const b = jumpAt(boundaryWindow(shuffled(D.score), 0, 3.5, kernel), shuffled(D.y_row), { variance: 'nn' });
+    expect(rel(b.se, a.se)).toBeLessThan(1e-12);
+    expect(rel(b.se_robust, a.se_robust)).toBeLessThan(1e-12);
+  }
+});

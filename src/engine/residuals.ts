@@ -6,10 +6,13 @@
  *   the estimate, degree 2 for the bias-corrected one).
  * - `hc1`: hc0 times sqrt(n_s/(n_s − q)), q the fit's parameter count (2 for
  *   the line, as METHODS.md states; 3 for the quadratic, Cutline's choice).
- * - `nn`: sqrt(J/(J+1))·(V_i − mean of V over the J = 3 nearest neighbours by
- *   score on the same side), Calonico, Cattaneo & Titiunik (2014, §3 and
- *   supplement). Units are sorted by score; a neighbour tie in distance goes
- *   to the unit on the left (lower score), Cutline's deterministic choice.
+ * - `nn`: sqrt(J_i/(J_i+1))·(V_i − mean of V over the nearest neighbours by
+ *   score on the same side of the window), Calonico, Cattaneo & Titiunik
+ *   (2014, §3 and supplement): the J = 3 nearest, and every further unit at
+ *   the same distance as the 3rd up to 1e-12 relative (J_i ≥ 3 counts them). Taking all the ties
+ *   makes the residuals a function of the data, not of the order of the rows
+ *   (a score with mass points would otherwise let the row order pick among
+ *   tied units); Cutline's reading, recalled from memory as the supplement's.
  */
 import { SideFit, SortedSide, valuesAt } from './boundaryWindow';
 
@@ -87,18 +90,37 @@ function computeNn(side: SortedSide, values: ArrayLike<number>, J: number): Floa
   const v = gathered(side, values);
   const e = new Float64Array(n);
   const jj = Math.min(J, n - 1);
-  const scale = Math.sqrt(jj / (jj + 1));
   for (let t = 0; t < n; t++) {
     let l = t - 1;
     let r = t + 1;
     let sum = 0;
+    let count = 0;
+    let last = 0;
     const xt = x[t];
     for (let c = 0; c < jj; c++) {
-      // Take the left neighbour when it is at least as close (ties go left).
-      if (r >= n || (l >= 0 && xt - x[l] <= x[r] - xt)) sum += v[l--];
-      else sum += v[r++];
+      // The closer of the next unit on the left and on the right (the order of equals does not matter: all ties are taken below).
+      if (r >= n || (l >= 0 && xt - x[l] <= x[r] - xt)) {
+        last = xt - x[l];
+        sum += v[l--];
+      } else {
+        last = x[r] - xt;
+        sum += v[r++];
+      }
+      count++;
     }
-    e[t] = scale * (v[t] - sum / jj);
+    // Every further unit as far as the J-th neighbour, up to rounding (1e-12
+    // relative: equal spacings of a grid differ in their last bits, and the
+    // choice must not depend on the score's scale).
+    const reach = last + last * 1e-12;
+    while (l >= 0 && xt - x[l] <= reach) {
+      sum += v[l--];
+      count++;
+    }
+    while (r < n && x[r] - xt <= reach) {
+      sum += v[r++];
+      count++;
+    }
+    e[t] = count > 0 ? Math.sqrt(count / (count + 1)) * (v[t] - sum / count) : 0;
   }
   return e;
 }
