@@ -86,3 +86,20 @@ describe('permutationBalanceTest', () => {
     expect(permutationBalanceTest(r, w, 0, { q: 5 }).warnings.join(' ')).toMatch(/tie at the q-th place/);
   });
 });
+
+describe('order of the rows', () => {
+  // A property of Cutline's tie rules (src/engine/covariatePermutation.ts): no outside source needed.
+  test('shuffling the rows leaves the statistic and the p-value unchanged, with tied scores and covariates', () => {
+    const n = 400;
+    const score = Float64Array.from({ length: n }, (_, i) => Math.round(((i * 7919) % n) / 20) - 10); // integers −10..10
+    const cov = Float64Array.from({ length: n }, (_, i) => (i * 31) % 5); // 5 values
+    const perm = Array.from({ length: n }, (_, i) => (i * 173 + 11) % n); // 173 coprime with 400
+    const s2 = Float64Array.from(perm, (p) => score[p]);
+    const c2 = Float64Array.from(perm, (p) => cov[p]);
+    const a = permutationBalanceTest(score, cov, 0.5, { q: 25, permutations: 199, seed: 3 });
+    const b = permutationBalanceTest(s2, c2, 0.5, { q: 25, permutations: 199, seed: 3 });
+    expect(a.warnings.join(' ')).toMatch(/drawn at random \(seeded\)/);
+    expect(b.statistic).toBe(a.statistic);
+    expect(b.pvalue).toBe(a.pvalue);
+  });
+});

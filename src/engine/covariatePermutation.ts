@@ -63,7 +63,15 @@ export function cramerVonMises(a: ArrayLike<number>, b: ArrayLike<number>): numb
 }
 
 /** Positions of the q units nearest the cutoff on one side (ties by row order). */
-function nearest(score: ArrayLike<number>, cutoff: number, q: number, above: boolean, rows?: Int32Array): { pos: Int32Array; tied: boolean } {
+function nearest(
+  score: ArrayLike<number>,
+  covariate: ArrayLike<number>,
+  cutoff: number,
+  q: number,
+  above: boolean,
+  rng: Random,
+  rows?: Int32Array,
+): { pos: Int32Array; tied: boolean } {
   const d = new Float64Array(q);
   const p = new Int32Array(q);
   let size = 0;
@@ -111,7 +119,25 @@ function nearest(score: ArrayLike<number>, cutoff: number, q: number, above: boo
     const x = score[rows ? rows[t] : t] - cutoff;
     if ((x >= 0) === above && Math.abs(x) === dq) atDq++;
   }
-  return { pos: p, tied: atDq > inHeap };
+  if (atDq <= inHeap) return { pos: p, tied: false };
+  // Units tie at the q-th distance: the ones kept must not depend on the order of
+  // the rows. All tied units, in the order of their covariate values (equal values
+  // are interchangeable in the statistic), then a seeded draw of as many as fit.
+  const closer: number[] = [];
+  for (let k = 0; k < q; k++) if (d[k] < dq) closer.push(p[k]);
+  const tiedAll: number[] = [];
+  for (let t = 0; t < total; t++) {
+    const i = rows ? rows[t] : t;
+    const x = score[i] - cutoff;
+    if ((x >= 0) === above && Math.abs(x) === dq) tiedAll.push(i);
+  }
+  tiedAll.sort((a, b) => covariate[a] - covariate[b]);
+  const need = q - closer.length;
+  for (let k = 0; k < need; k++) {
+    const j = k + rng.integer(tiedAll.length - k);
+    [tiedAll[k], tiedAll[j]] = [tiedAll[j], tiedAll[k]];
+  }
+  return { pos: Int32Array.from([...closer, ...tiedAll.slice(0, need)]), tied: true };
 }
 
 /**
@@ -206,16 +232,23 @@ export function permutationBalanceTest(
       warnings.push(`the permutation test uses q = ${q}, all the units on the smaller side of the cutoff`);
     }
   }
-  const lo = nearest(score, cutoff, q, false, opts.rows);
-  const hi = nearest(score, cutoff, q, true, opts.rows);
+  // Its own stream of the seed, so that the permutations below are those of an untied sample.
+  const tieRng = new Random((seed ^ 0x5bd1e995) >>> 0);
+  const lo = nearest(score, covariate, cutoff, q, false, tieRng, opts.rows);
+  const hi = nearest(score, covariate, cutoff, q, true, tieRng, opts.rows);
   if (lo.tied || hi.tied) {
-    warnings.push('the permutation test: scores tie at the q-th place from the cutoff; the tied units were taken in row order');
+    warnings.push(
+      'the permutation test: scores tie at the q-th place from the cutoff; the units kept among the tied ones were drawn at random (seeded), so the result does not depend on the order of the rows',
+    );
   }
   // Pool, sort once; a permutation only reshuffles the side labels.
   const m = 2 * q;
   const order = Array.from({ length: m }, (_, k) => (k < q ? lo.pos[k] : hi.pos[k - q]));
   const label = new Uint8Array(m);
-  const idx = Array.from({ length: m }, (_, k) => k).sort((a, b) => covariate[order[a]] - covariate[order[b]] || a - b);
+  // Sorted by (covariate, side): within equal covariate values the labels start in a
+  // canonical order, so that the seeded permutations do not depend on the row order.
+  const sideOf = (k: number): number => (k >= q ? 1 : 0);
+  const idx = Array.from({ length: m }, (_, k) => k).sort((a, b) => covariate[order[a]] - covariate[order[b]] || sideOf(a) - sideOf(b) || a - b);
   for (let k = 0; k < m; k++) label[k] = idx[k] >= q ? 1 : 0;
   const ends: number[] = [];
   for (let k = 1; k <= m; k++) if (k === m || covariate[order[idx[k]]] !== covariate[order[idx[k - 1]]]) ends.push(k);
