@@ -115,6 +115,18 @@ describe('reproducibility', () => {
     const r = validityTest(d.score, d.treated, d.outcome, 0, { ...opts, multiplier: 'rademacher', draws: 199, seed: 3 });
           // Values produced by this engine at commit time (seeded xoshiro128** + Box–Muller), not an outside source.
     expect([a.statistic.toFixed(10), a.pvalue, a.critical_value.toFixed(10)]).toEqual(['2.1647575974', 547 / 999, '3.1376649290']);
-    expect([r.pvalue, r.critical_value.toFixed(10)]).toEqual([77 / 199, '2.9043070542']);
+    // Rademacher signs go to units in the canonical order of validityBootstrap.ts (tied scores by cell).
+    expect([r.pvalue, r.critical_value.toFixed(10)]).toEqual([71 / 199, '2.7031245442']);
+  });
+  test('Rademacher draws do not depend on the order of the rows (tied scores)', () => {
+    // A property of Cutline's canonical order; no outside source needed.
+    const n = d.score.length;
+    const perm = Array.from({ length: n }, (_, i) => (i * 7 + 3) % n); // 7 is coprime with 600
+    const pick = (a: number[]): number[] => perm.map((p) => a[p]);
+    const ro = { ...opts, multiplier: 'rademacher' as const, draws: 199, seed: 3 };
+    const a = validityTest(d.score, d.treated, d.outcome, 0, ro);
+    const b = validityTest(pick(d.score), pick(d.treated), pick(d.outcome), 0, ro);
+    expect(b.pvalue).toBe(a.pvalue);
+    expect(b.critical_value).toBeCloseTo(a.critical_value, 12);
   });
 });

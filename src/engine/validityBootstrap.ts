@@ -164,6 +164,28 @@ function unitSums(s: SideSums, u: ArrayLike<number>, into: Float64Array): number
   return t;
 }
 
+/**
+ * The window's units in a canonical order for the unit-level draws: the side
+ * order (by score, ties by row), with each run of units of equal ω and ωx —
+ * tied scores — reordered by cell. Units equal in ω, ωx and cell contribute
+ * alike, so the Rademacher p-value no longer depends on the order of the rows.
+ * Returns, for rank j, the unit that receives the j-th sign.
+ */
+function canonicalRanks(s: SideSums): Int32Array {
+  const n = s.w.length;
+  const unit = Int32Array.from({ length: n }, (_, i) => i);
+  for (let a = 0; a < n; ) {
+    let b = a + 1;
+    while (b < n && s.w[b] === s.w[a] && s.wx[b] === s.wx[a]) b++;
+    if (b - a > 1) {
+      const run = Array.from(unit.subarray(a, b)).sort((i, j) => s.cell[i] - s.cell[j] || i - j);
+      unit.set(run, a);
+    }
+    a = b;
+  }
+  return unit;
+}
+
 /** φ(ℓ) = 0 if t(ℓ) ≥ −κ, else −B (Andrews & Shi 2013 moment selection). */
 export function selection(m: MomentSet, kappa: number, bn: number): Float64Array {
   const phi = new Float64Array(m.count);
@@ -190,6 +212,7 @@ export function bootstrapMaxima(
   const uLen = Math.max(...sets.map((m) => Math.max(m.plus.w.length, m.minus.w.length)));
   const uPlus = new Float64Array(multiplier === 'rademacher' ? uLen : 0);
   const uMinus = new Float64Array(multiplier === 'rademacher' ? uLen : 0);
+  const ranks = multiplier === 'rademacher' ? plans.map((p) => [canonicalRanks(p.m.plus), canonicalRanks(p.m.minus)]) : [];
   const out = new Float64Array(draws);
   for (let b = 0; b < draws; b++) {
     let best = -Infinity;
@@ -203,8 +226,10 @@ export function bootstrapMaxima(
       } else {
         const np = p.m.plus.w.length;
         const nm = p.m.minus.w.length;
-        for (let j = 0; j < np; j++) uPlus[j] = rng.sign();
-        for (let j = 0; j < nm; j++) uMinus[j] = rng.sign();
+        // The j-th sign drawn goes to the unit of canonical rank j (see canonicalRanks).
+        const [rp, rm] = ranks[g];
+        for (let j = 0; j < np; j++) uPlus[rp[j]] = rng.sign();
+        for (let j = 0; j < nm; j++) uMinus[rm[j]] = rng.sign();
         v = multiplierDraw(p, uPlus, uMinus, phis[g], null);
       }
       if (v > best) best = v;
