@@ -12,7 +12,7 @@
  */
 import { CutlineError } from './errors';
 import { sampleCovariance, sampleVariance } from './describe';
-import { sortedOrder, valuesAt } from './boundaryWindow';
+import { lowerBound, sortedOrder, valuesAt } from './boundaryWindow';
 import { invertSmall } from './linalg';
 
 export interface Pilots {
@@ -29,19 +29,6 @@ export interface Pilots {
 // check (the estimates' and the validity test's) use the same ones.
 const pilotCache = new WeakMap<object, Map<number, Pilots>>();
 
-/** First position in the sorted order whose score is ≥ v (> v when `after`). */
-function searchSorted(score: ArrayLike<number>, order: Int32Array, v: number, after: boolean): number {
-  let lo = 0;
-  let hi = order.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    const s = score[order[mid]];
-    if (after ? s <= v : s < v) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
 export function pilotWindow(score: ArrayLike<number>, cutoff: number): Pilots {
   let byCutoff = pilotCache.get(score as object);
   const hit = byCutoff?.get(cutoff);
@@ -52,11 +39,11 @@ export function pilotWindow(score: ArrayLike<number>, cutoff: number): Pilots {
   const h1 = 1.84 * sd * Math.pow(n, -0.2);
   // Below: c − h₁ ≤ R < c; above: c ≤ R ≤ c + h₁ (x = R − c compared with h₁, as IK state it).
   const order = sortedOrder(score);
-  const c0 = searchSorted(score, order, cutoff, false);
-  let lo = searchSorted(score, order, cutoff - h1, false);
+  const c0 = lowerBound(score, order, cutoff, false);
+  let lo = lowerBound(score, order, cutoff - h1, false);
   while (lo > 0 && score[order[lo - 1]] - cutoff >= -h1) lo--;
   while (lo < c0 && !(score[order[lo]] - cutoff >= -h1)) lo++;
-  let hi = searchSorted(score, order, cutoff + h1, true);
+  let hi = lowerBound(score, order, cutoff + h1, true);
   while (hi < n && score[order[hi]] - cutoff <= h1) hi++;
   while (hi > c0 && !(score[order[hi - 1]] - cutoff <= h1)) hi--;
   const below = order.slice(lo, c0);
@@ -143,14 +130,14 @@ export function medianBand(score: ArrayLike<number>, cutoff: number): Int32Array
 
 function computeMedianBand(score: ArrayLike<number>, cutoff: number): Int32Array {
   const order = sortedOrder(score);
-  const nLo = searchSorted(score, order, cutoff, false);
+  const nLo = lowerBound(score, order, cutoff, false);
   const med = (from: number, count: number): number =>
     count % 2 === 1
       ? score[order[from + (count - 1) / 2]]
       : 0.5 * (score[order[from + count / 2 - 1]] + score[order[from + count / 2]]);
   const mLo = med(0, nLo);
   const mHi = med(nLo, order.length - nLo);
-  return order.subarray(searchSorted(score, order, mLo, false), searchSorted(score, order, mHi, true));
+  return order.subarray(lowerBound(score, order, mLo, false), lowerBound(score, order, mHi, true));
 }
 
 // X'X of the step cubic depends on the scores alone: computed once per band

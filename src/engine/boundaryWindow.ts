@@ -186,7 +186,7 @@ export function valuesAt(index: Int32Array, values: ArrayLike<number>): Float64A
 }
 
 /** First position in the sorted order whose score is ≥ v (or > v when strict). */
-function lowerBound(score: ArrayLike<number>, order: Int32Array, v: number, strict: boolean): number {
+export function lowerBound(score: ArrayLike<number>, order: Int32Array, v: number, strict: boolean): number {
   let lo = 0;
   let hi = order.length;
   while (lo < hi) {
