@@ -263,12 +263,13 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   if (variance === 'cluster' && !input.cluster) throw new CutlineError('--variance cluster needs --cluster COL');
   const n = input.score.values.length;
   const donut = donutMask(input.score, cutoff, options.donut);
-  const first = prepare(input, input.outcomes[0], false, donut?.mask);
+  // Each outcome's listwise rows, selected once for the checks, estimates and bins below.
+  const prepared = input.outcomes.map((col) => prepare(input, col, false, donut?.mask));
+  const first = prepared[0];
   checkSides(first.score, cutoff);
   requireVaries(first.treated, `--treated: column ${JSON.stringify(input.treated.name)}`, 'take-up cannot jump');
   input.outcomes.forEach((col, j) => {
-    const p = j === 0 ? first : prepare(input, col, false, donut?.mask);
-    requireVaries(p.outcome!, `--outcome: column ${JSON.stringify(col.name)}`, 'there is no jump to estimate or test');
+    requireVaries(prepared[j].outcome!, `--outcome: column ${JSON.stringify(col.name)}`, 'there is no jump to estimate or test');
   });
   const bw = chooseBandwidth(first.score, first.outcome!, cutoff, {
     rule: options.rule,
@@ -316,7 +317,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   };
 
   const outcomes = input.outcomes.map((col, j) => {
-    const p = j === 0 ? first : prepare(input, col, false, donut?.mask);
+    const p = prepared[j];
     const shared = sameRows(p.rows);
     const est = estimatesAtCutoff(p.score, p.treated, p.outcome!, cutoff, {
       ...opts,
@@ -410,10 +411,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   let bins: BinnedSeries[] | undefined;
   if (options.bins) {
     bins = [binnedSeries(input.treated.name, tk.score, tk.treated, cutoff, h, kernel)];
-    input.outcomes.forEach((col, j) => {
-      const p = j === 0 ? first : prepare(input, col, false, donut?.mask);
-      bins!.push(binnedSeries(col.name, p.score, p.outcome!, cutoff, h, kernel));
-    });
+    input.outcomes.forEach((col, j) => bins!.push(binnedSeries(col.name, prepared[j].score, prepared[j].outcome!, cutoff, h, kernel)));
     for (const c of covs) bins.push(binnedSeries(c.name, c.score, c.values, cutoff, h, kernel));
   }
 
