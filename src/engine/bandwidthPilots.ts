@@ -10,6 +10,7 @@
  *   squares fit of V on (1, 1{R ≥ c}, x, x², x³) among the units whose score
  *   lies between the median score below and the median score above the cutoff.
  */
+import { rememberedAt } from './memo';
 import { CutlineError } from './errors';
 import { sampleCovariance, sampleVariance } from './describe';
 import { lowerBound, sortedOrder, valuesAt } from './boundaryWindow';
@@ -30,9 +31,10 @@ export interface Pilots {
 const pilotCache = new WeakMap<object, Map<number, Pilots>>();
 
 export function pilotWindow(score: ArrayLike<number>, cutoff: number): Pilots {
-  let byCutoff = pilotCache.get(score as object);
-  const hit = byCutoff?.get(cutoff);
-  if (hit) return hit;
+  return rememberedAt(pilotCache, score as object, cutoff, () => computePilots(score, cutoff));
+}
+
+function computePilots(score: ArrayLike<number>, cutoff: number): Pilots {
   const n = score.length;
   const sd = Math.sqrt(sampleVariance(score));
   if (!(sd > 0)) throw new CutlineError('score is constant: a bandwidth cannot be chosen');
@@ -54,7 +56,7 @@ export function pilotWindow(score: ArrayLike<number>, cutoff: number): Pilots {
         `(${below.length} below, ${above.length} above; at least 2 each are needed)`,
     );
   }
-  const pilots: Pilots = {
+  return {
     n,
     nBelow: c0,
     nAbove: n - c0,
@@ -62,12 +64,6 @@ export function pilotWindow(score: ArrayLike<number>, cutoff: number): Pilots {
     density: (below.length + above.length) / (2 * n * h1),
     near: { below, above },
   };
-  if (!byCutoff) {
-    byCutoff = new Map();
-    pilotCache.set(score as object, byCutoff);
-  }
-  byCutoff.set(cutoff, pilots);
-  return pilots;
 }
 
 function pick(values: ArrayLike<number>, idx: Int32Array): Float64Array {
@@ -115,17 +111,7 @@ export function olsCoefficients(
 const bandCache = new WeakMap<object, Map<number, Int32Array>>();
 
 export function medianBand(score: ArrayLike<number>, cutoff: number): Int32Array {
-  let byCutoff = bandCache.get(score as object);
-  if (!byCutoff) {
-    byCutoff = new Map();
-    bandCache.set(score as object, byCutoff);
-  }
-  let band = byCutoff.get(cutoff);
-  if (!band) {
-    band = computeMedianBand(score, cutoff);
-    byCutoff.set(cutoff, band);
-  }
-  return band;
+  return rememberedAt(bandCache, score as object, cutoff, () => computeMedianBand(score, cutoff));
 }
 
 function computeMedianBand(score: ArrayLike<number>, cutoff: number): Int32Array {

@@ -15,6 +15,7 @@
  *   const w = boundaryWindow(score, 60, 8, 'triangular');
  *   const a = w.above.coef[0].reduce((s, om, i) => s + om * y[w.above.index[i]], 0);
  */
+import { rememberedFor } from './memo';
 import { CutlineError } from './errors';
 import { KernelName, kernelWeight } from './kernels';
 import { invertSmall } from './linalg';
@@ -151,22 +152,15 @@ export function sortedOrder(score: ArrayLike<number>): Int32Array {
 // sorted order then serves every window as a slice: sequential reads instead
 // of a random gather from the data order for each window.
 const orderByBuffer = new WeakMap<ArrayBufferLike, Int32Array>();
-const sortedColumns = new WeakMap<Int32Array, WeakMap<object, Float64Array>>();
+const sortedColumns = new WeakMap<object, WeakMap<object, Float64Array>>();
 
 /** values in the sorted order of the score array whose order this is. */
 function sortedColumn(order: Int32Array, values: ArrayLike<number>): Float64Array {
-  let byValues = sortedColumns.get(order);
-  if (!byValues) {
-    byValues = new WeakMap();
-    sortedColumns.set(order, byValues);
-  }
-  let col = byValues.get(values as object);
-  if (!col) {
-    col = new Float64Array(order.length);
+  return rememberedFor(sortedColumns, order, values as object, () => {
+    const col = new Float64Array(order.length);
     for (let t = 0; t < order.length; t++) col[t] = values[order[t]];
-    byValues.set(values as object, col);
-  }
-  return col;
+    return col;
+  });
 }
 
 /**

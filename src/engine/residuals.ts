@@ -14,6 +14,7 @@
  *   (a score with mass points would otherwise let the row order pick among
  *   tied units); Cutline's reading, recalled from memory as the supplement's.
  */
+import { rememberedFor } from './memo';
 import { SideFit, SortedSide, valuesAt } from './boundaryWindow';
 
 export type VarianceName = 'hc0' | 'hc1' | 'nn' | 'cluster';
@@ -47,41 +48,21 @@ export function fitResiduals(side: SideFit, values: ArrayLike<number>, degree: 1
 
 // A column's values at a side's units, in the side's order: every pass over a
 // window reads them, and the gather from the data order is the slow part.
-const gatherCache = new WeakMap<SortedSide, WeakMap<object, Float64Array>>();
+const gatherCache = new WeakMap<object, WeakMap<object, Float64Array>>();
 
 /** values[index[t]] for the side's units, computed once per side and column. */
 export function gathered(side: SortedSide, values: ArrayLike<number>): Float64Array {
-  let bySide = gatherCache.get(side);
-  if (!bySide) {
-    bySide = new WeakMap();
-    gatherCache.set(side, bySide);
-  }
-  let v = bySide.get(values as object);
-  if (!v) {
-    v = valuesAt(side.index, values);
-    bySide.set(values as object, v);
-  }
-  return v;
+  return rememberedFor(gatherCache, side, values as object, () => valuesAt(side.index, values));
 }
 
 // nn residuals depend on the side and the column only; a check asks for the
 // same ones several times (pilots, estimates). Callers never write to them.
-const nnCache = new WeakMap<SortedSide, WeakMap<object, Float64Array>>();
+const nnCache = new WeakMap<object, WeakMap<object, Float64Array>>();
 
 /** Nearest-neighbour residuals (J = 3) of V on one side. */
 export function nnResiduals(side: SortedSide, values: ArrayLike<number>, J = NN_NEIGHBOURS): Float64Array {
   if (J !== NN_NEIGHBOURS) return computeNn(side, values, J);
-  let bySide = nnCache.get(side);
-  if (!bySide) {
-    bySide = new WeakMap();
-    nnCache.set(side, bySide);
-  }
-  let e = bySide.get(values as object);
-  if (!e) {
-    e = computeNn(side, values, J);
-    bySide.set(values as object, e);
-  }
-  return e;
+  return rememberedFor(nnCache, side, values as object, () => computeNn(side, values, J));
 }
 
 function computeNn(side: SortedSide, values: ArrayLike<number>, J: number): Float64Array {

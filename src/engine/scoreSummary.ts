@@ -5,6 +5,7 @@
  * tests, the permutation test and the binned plots; a non-finite score is a
  * CutlineError naming the row (the input layer should have caught it).
  */
+import { rememberedAt } from './memo';
 import { CutlineError } from './errors';
 
 export interface ScoreSummary {
@@ -23,18 +24,7 @@ const summaryCache = new WeakMap<object, Map<string, ScoreSummary>>();
 
 export function scoreSummary(score: ArrayLike<number>, cutoff: number, rows?: Int32Array, what = 'score'): ScoreSummary {
   if (rows) return computeSummary(score, cutoff, rows, what);
-  let byKey = summaryCache.get(score as object);
-  if (!byKey) {
-    byKey = new Map();
-    summaryCache.set(score as object, byKey);
-  }
-  const key = `${cutoff}|${what}`;
-  let s = byKey.get(key);
-  if (!s) {
-    s = computeSummary(score, cutoff, undefined, what);
-    byKey.set(key, s);
-  }
-  return s;
+  return rememberedAt(summaryCache, score as object, `${cutoff}|${what}`, () => computeSummary(score, cutoff, undefined, what));
 }
 
 function computeSummary(score: ArrayLike<number>, cutoff: number, rows: Int32Array | undefined, what: string): ScoreSummary {
