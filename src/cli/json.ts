@@ -2,12 +2,7 @@
  * The `--json` document of DESIGN.md: the engine's result with the keys of
  * the contract (later checks add their keys when they exist).
  */
-import { CheckResult, EstimateSummary } from '../engine/check';
-
-/** An estimate as the engine summarises it (check.ts decides its fields). */
-function estimate(e: EstimateSummary): EstimateSummary {
-  return { ...e };
-}
+import { CheckResult } from '../engine/check';
 
 export function toJson(r: CheckResult): Record<string, unknown> {
   return {
@@ -15,14 +10,14 @@ export function toJson(r: CheckResult): Record<string, unknown> {
     eligible: r.eligible,
     rows: r.rows,
     bandwidth: { value: r.bandwidth.value, rule: r.bandwidth.rule, kernel: r.bandwidth.kernel, variance: r.bandwidth.variance, window: r.bandwidth.window },
-    takeup: estimate(r.takeup),
+    takeup: r.takeup,
     test_bandwidth: r.test_bandwidth,
     outcomes: r.outcomes.map((o) => ({
       name: o.name,
       rows: o.rows,
       window: o.window,
-      jump: estimate(o.jump),
-      effect: estimate(o.effect),
+      jump: o.jump,
+      effect: o.effect,
       validity: {
         statistic: o.validity.statistic,
         pvalue: o.validity.pvalue,
