@@ -9,12 +9,12 @@
 import { spawnSync } from 'child_process';
 import * as fs from 'fs';
 import * as path from 'path';
-import { runCheck } from '../src/engine/check';
+import { runCheck } from '../src/engine/check/check';
 import { numericColumn } from '../src/input/columns';
 import { parseCsv } from '../src/input/csv';
 import { bigCsvPath, Shape } from './bigData';
-import { bandwidthMse } from '../src/engine/bandwidthMse';
-import { estimatesAtCutoff } from '../src/engine/estimatesAtCutoff';
+import { bandwidthMse } from '../src/engine/bandwidth/bandwidthMse';
+import { estimatesAtCutoff } from '../src/engine/fit/estimatesAtCutoff';
 
 const root = path.resolve(__dirname, '..', '..', '..');
 const cli = fs.existsSync(path.join(process.cwd(), 'bin/cutline.cjs')) ? path.join(process.cwd(), 'bin/cutline.cjs') : path.join(root, 'bin/cutline.cjs');

@@ -5,13 +5,13 @@
  * and the binned means. Prints figures; asserts nothing.
  * Run: node bin/run-ts.cjs bench/densityBench.ts
  */
-import { binnedMeans } from '../src/engine/binnedMeans';
-import { boundaryWindow } from '../src/engine/boundaryWindow';
-import { permutationBalanceTest } from '../src/engine/covariatePermutation';
-import { localPolynomialDensityTest } from '../src/engine/densityLocalPolynomial';
-import { mccraryTest } from '../src/engine/densityMcCrary';
-import { jumpAt } from '../src/engine/jumpAt';
-import { Random } from '../src/engine/random';
+import { binnedMeans } from '../src/engine/plots/binnedMeans';
+import { boundaryWindow } from '../src/engine/fit/boundaryWindow';
+import { permutationBalanceTest } from '../src/engine/covariates/covariatePermutation';
+import { localPolynomialDensityTest } from '../src/engine/density/densityLocalPolynomial';
+import { mccraryTest } from '../src/engine/density/densityMcCrary';
+import { jumpAt } from '../src/engine/fit/jumpAt';
+import { Random } from '../src/engine/numeric/random';
 
 const n = 1_000_000;
 const rng = new Random(2024);

@@ -6,10 +6,10 @@
  * Nominal level 5%; MC standard errors sqrt(p(1−p)/reps).
  * Run: node bin/run-ts.cjs bench/densityMonteCarlo.ts [reps]
  */
-import { permutationBalanceTest } from '../src/engine/covariatePermutation';
-import { localPolynomialDensityTest } from '../src/engine/densityLocalPolynomial';
-import { mccraryTest } from '../src/engine/densityMcCrary';
-import { Random } from '../src/engine/random';
+import { permutationBalanceTest } from '../src/engine/covariates/covariatePermutation';
+import { localPolynomialDensityTest } from '../src/engine/density/densityLocalPolynomial';
+import { mccraryTest } from '../src/engine/density/densityMcCrary';
+import { Random } from '../src/engine/numeric/random';
 
 const reps = Number(process.argv[2] ?? 2000);
 const fmt = (k: number, r: number) => {

@@ -10,7 +10,7 @@
  * Take-up: about 0.17 just below 60, about 0.68 just above (jump ≈ 0.5).
  *
  */
-import { Random } from '../src/engine/random';
+import { Random } from '../src/engine/numeric/random';
 
 export const TRUE_BILL_EFFECT = -180;
 export const TRUE_ARREARS_EFFECT = -0.06;

@@ -3,12 +3,12 @@
  * (DESIGN.md). Exit status 0 on success, 2 for bad input (one line on
  * standard error saying what and where), 1 for anything else.
  */
-import { BANDWIDTH_RULES } from '../engine/bandwidth';
-import { CheckInput, runCheck } from '../engine/check';
+import { BANDWIDTH_RULES } from '../engine/bandwidth/bandwidth';
+import { CheckInput, runCheck } from '../engine/check/check';
 import { CutlineError } from '../engine/errors';
-import { KERNEL_NAMES } from '../engine/kernels';
-import { VARIANCE_NAMES } from '../engine/residuals';
-import { MAX_DRAWS, MAX_GRID } from '../engine/validityTest';
+import { KERNEL_NAMES } from '../engine/fit/kernels';
+import { VARIANCE_NAMES } from '../engine/fit/residuals';
+import { MAX_DRAWS, MAX_GRID } from '../engine/validity/validityTest';
 import { labelColumn, numericColumn } from '../input/columns';
 import { choiceOption, numberOption, one, parseArgs, ParsedArgs, required } from './args';
 import { toJson } from './json';

@@ -102,4 +102,4 @@ export function labelColumn(table: Table, name: string, role: ColumnRole): Label
   return { name: table.header[c], codes, labels, missing };
 }
 
-export { completeRows, compact } from '../engine/listwise';
+export { completeRows, compact } from '../engine/data/listwise';

@@ -1,0 +1,64 @@
+/**
+ * One linear pass over the score (optionally restricted to `rows`): count,
+ * mean, sample standard deviation, range and the counts on each side of the
+ * cutoff (a unit at the cutoff is above, METHODS.md §1). Shared by the density
+ * tests, the permutation test and the binned plots; a non-finite score is a
+ * CutlineError naming the row (the input layer should have caught it).
+ */
+import { rememberedAt } from './memo';
+import { CutlineError } from '../errors';
+
+export interface ScoreSummary {
+  n: number;
+  mean: number;
+  sd: number;
+  min: number;
+  max: number;
+  below: number;
+  above: number;
+}
+
+// The density tests and the permutation tests of a check summarise the same
+// scores: remembered per score array and cutoff (whole arrays only).
+const summaryCache = new WeakMap<object, Map<string, ScoreSummary>>();
+
+export function scoreSummary(score: ArrayLike<number>, cutoff: number, rows?: Int32Array, what = 'score'): ScoreSummary {
+  if (rows) return computeSummary(score, cutoff, rows, what);
+  return rememberedAt(summaryCache, score as object, `${cutoff}|${what}`, () => computeSummary(score, cutoff, undefined, what));
+}
+
+function computeSummary(score: ArrayLike<number>, cutoff: number, rows: Int32Array | undefined, what: string): ScoreSummary {
+  if (!Number.isFinite(cutoff)) throw new CutlineError(`the cutoff must be a finite number, got ${cutoff}`);
+  const n = rows ? rows.length : score.length;
+  let sum = 0;
+  let min = Infinity;
+  let max = -Infinity;
+  let above = 0;
+  for (let t = 0; t < n; t++) {
+    const i = rows ? rows[t] : t;
+    const r = score[i];
+    if (!Number.isFinite(r)) throw new CutlineError(`the ${what} must be a finite number; row ${i + 1} holds ${r}`);
+    sum += r;
+    if (r < min) min = r;
+    if (r > max) max = r;
+    if (r >= cutoff) above++;
+  }
+  const mean = n > 0 ? sum / n : NaN;
+  let ss = 0;
+  for (let t = 0; t < n; t++) {
+    const d = score[rows ? rows[t] : t] - mean;
+    ss += d * d;
+  }
+  return { n, mean, sd: n > 1 ? Math.sqrt(ss / (n - 1)) : 0, min, max, below: n - above, above };
+}
+
+/** Throws unless both sides of the cutoff hold at least `min` units. */
+export function requireBothSides(s: ScoreSummary, min: number, what: string): void {
+  for (const [count, side] of [[s.below, 'below'], [s.above, 'above']] as const) {
+    if (count < min) {
+      throw new CutlineError(
+        `${what} needs at least ${min} unit${min === 1 ? '' : 's'} ${side} the cutoff; the data hold ${count}`,
+      );
+    }
+  }
+}

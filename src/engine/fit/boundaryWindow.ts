@@ -1,0 +1,408 @@
+/**
+ * The kernel window at the cutoff and the local polynomial smoother weights
+ * of METHODS.md §2, computed once per side from the scores alone and reused
+ * for every outcome, indicator and bootstrap draw.
+ *
+ * On each side, the coefficient vector of a weighted least-squares fit of V on
+ * (1, x, …, x^p), x = R − c, weights k_i = K(x_i/h), is Σ_i W_j(i) V_i with
+ * W(i) = (Σ_l k_l z_l z_l')⁻¹ z_i k_i. Row 0 of W (the intercept weights) is
+ * the ω of METHODS.md. Units of a side are stored sorted by score, which the
+ * nearest-neighbour variance and the validity test rely on.
+ *
+ * Reference: Fan & Gijbels (1996), Local Polynomial Modelling, §3.
+ *
+ * @example
+ *   const w = boundaryWindow(score, 60, 8, 'triangular');
+ *   const a = w.above.coef[0].reduce((s, om, i) => s + om * y[w.above.index[i]], 0);
+ */
+import { rememberedFor } from '../data/memo';
+import { CutlineError } from '../errors';
+import { KernelName, kernelWeight } from './kernels';
+import { invertSmall } from '../numeric/linalg';
+import { argsortBy } from '../numeric/argsort';
+
+export interface SideFit {
+  /** True for the side R ≥ c. */
+  above: boolean;
+  /** Positions of the window's units in the data arrays, sorted by score. */
+  index: Int32Array;
+  /** x_i = R_i − c. */
+  x: Float64Array;
+  /** Kernel weights k_i > 0. */
+  k: Float64Array;
+  /** Linear fit: coef1[0] intercept weights ω, coef1[1] slope weights. */
+  coef1: [Float64Array, Float64Array];
+  /** Quadratic fit on the same window (for bias correction), if asked for. */
+  coef2?: [Float64Array, Float64Array, Float64Array];
+  /** Number of distinct scores in the side's window. */
+  distinct: number;
+}
+
+export interface Window {
+  cutoff: number;
+  bandwidth: number;
+  kernel: KernelName;
+  above: SideFit;
+  below: SideFit;
+}
+
+function sideName(above: boolean): string {
+  return above ? 'above' : 'below';
+}
+
+/** Coefficient weights of the degree-p fit, W_j(i) in units of x (not x/h). */
+function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, above: boolean, only?: number): Float64Array[] {
+  const n = x.length;
+  const q = p + 1;
+  const m: number[][] = Array.from({ length: q }, () => new Array<number>(q).fill(0));
+  // Moments in u = x/s, s the window's largest |x| (not h: a bandwidth far beyond the
+  // data would make every u tiny and the normal equations look singular); Σ k u^(a+b).
+  let sc = 0;
+  for (let i = 0; i < n; i++) sc = Math.max(sc, Math.abs(x[i]));
+  if (!(sc > 0)) sc = h;
+  const mom = new Array<number>(2 * p + 1).fill(0);
+  if (p <= 2) {
+    // Unrolled moments Σ k uʲ, j ≤ 4 (the only degrees the engine fits).
+    let m0 = 0;
+    let m1 = 0;
+    let m2 = 0;
+    let m3 = 0;
+    let m4 = 0;
+    for (let i = 0; i < n; i++) {
+      const u = x[i] / sc;
+      const ku = k[i] * u;
+      const ku2 = ku * u;
+      m0 += k[i];
+      m1 += ku;
+      m2 += ku2;
+      m3 += ku2 * u;
+      m4 += ku2 * u * u;
+    }
+    const all = [m0, m1, m2, m3, m4];
+    for (let a = 0; a <= 2 * p; a++) mom[a] = all[a];
+  } else {
+    for (let i = 0; i < n; i++) {
+      const u = x[i] / sc;
+      let pw = k[i];
+      for (let a = 0; a <= 2 * p; a++) {
+        mom[a] += pw;
+        pw *= u;
+      }
+    }
+  }
+  for (let a = 0; a < q; a++) for (let b = 0; b < q; b++) m[a][b] = mom[a + b];
+  const inv = invertSmall(m);
+  if (!inv) {
+    throw new CutlineError(
+      `the window (bandwidth ${fmt(h)}) ${sideName(above)} the cutoff cannot be fitted by a degree-${p} polynomial: ` +
+        `its scores take too few distinct values — widen the bandwidth`,
+    );
+  }
+  const out = Array.from({ length: q }, (_, j) => new Float64Array(only === undefined || only === j ? n : 0));
+  for (let j = 0; j < q; j++) {
+    if (only !== undefined && j !== only) continue;
+    // Row j of Γ⁻¹ divided by s^j, as a polynomial in u evaluated by Horner's rule.
+    const c = inv[j].map((v) => v / Math.pow(sc, j));
+    const o = out[j];
+    if (q === 2) {
+      const [c0, c1] = c;
+      for (let i = 0; i < n; i++) o[i] = (c0 + c1 * (x[i] / sc)) * k[i];
+    } else if (q === 3) {
+      const [c0, c1, c2] = c;
+      for (let i = 0; i < n; i++) {
+        const u = x[i] / sc;
+        o[i] = (c0 + u * (c1 + u * c2)) * k[i];
+      }
+    } else {
+      for (let i = 0; i < n; i++) {
+        const u = x[i] / sc;
+        let s = c[q - 1];
+        for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
+        o[i] = s * k[i];
+      }
+    }
+  }
+  return out;
+}
+
+function fmt(v: number): string {
+  return Number(v.toPrecision(6)).toString();
+}
+
+// Sorted order of each score array seen, so that every window after the first
+// is two binary searches and a slice instead of a pass and a sort. Arrays
+// handed to the engine are never modified (by the engine or by the faces).
+const sortedCache = new WeakMap<object, Int32Array>();
+
+/** Positions of all units sorted by score (ties by position), computed once per array. */
+export function sortedOrder(score: ArrayLike<number>): Int32Array {
+  let order = sortedCache.get(score as object);
+  if (!order) {
+    const all = new Int32Array(score.length);
+    for (let i = 0; i < all.length; i++) all[i] = i;
+    order = argsortBy(score, all);
+    sortedCache.set(score as object, order);
+    orderByBuffer.set(order.buffer, order);
+  }
+  return order;
+}
+
+// Windows of whole arrays are views (subarrays) of the sorted order, so a
+// window's units are a contiguous run of it. A column gathered once into
+// sorted order then serves every window as a slice: sequential reads instead
+// of a random gather from the data order for each window.
+const orderByBuffer = new WeakMap<ArrayBufferLike, Int32Array>();
+const sortedColumns = new WeakMap<object, WeakMap<object, Float64Array>>();
+
+/** values in the sorted order of the score array whose order this is. */
+function sortedColumn(order: Int32Array, values: ArrayLike<number>): Float64Array {
+  return rememberedFor(sortedColumns, order, values as object, () => {
+    const col = new Float64Array(order.length);
+    for (let t = 0; t < order.length; t++) col[t] = values[order[t]];
+    return col;
+  });
+}
+
+/**
+ * values[index[t]] for a window's positions: a slice of the sorted column when
+ * the positions are a view of a sorted order, else a plain gather (a copy
+ * either way is never needed: callers only read it).
+ */
+export function valuesAt(index: Int32Array, values: ArrayLike<number>): Float64Array {
+  const order = orderByBuffer.get(index.buffer);
+  if (order && index.length > 0) {
+    const start = (index.byteOffset - order.byteOffset) / Int32Array.BYTES_PER_ELEMENT;
+    return sortedColumn(order, values).subarray(start, start + index.length);
+  }
+  const out = new Float64Array(index.length);
+  for (let t = 0; t < index.length; t++) out[t] = values[index[t]];
+  return out;
+}
+
+/** First position in the sorted order whose score is ≥ v (or > v when strict). */
+export function lowerBound(score: ArrayLike<number>, order: Int32Array, v: number, strict: boolean): number {
+  let lo = 0;
+  let hi = order.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    const s = score[order[mid]];
+    if (strict ? s <= v : s < v) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * Positions inside the window on each side, sorted by score (ties by
+ * position). Every kernel is zero exactly outside the open interval (−1, 1).
+ */
+function windowPositions(score: ArrayLike<number>, cutoff: number, h: number, rows?: Int32Array): { above: Int32Array; below: Int32Array } {
+  if (rows) {
+    const above: number[] = [];
+    const below: number[] = [];
+    for (let t = 0; t < rows.length; t++) {
+      const xv = score[rows[t]] - cutoff;
+      if (xv >= 0) {
+        if (xv < h) above.push(rows[t]);
+      } else if (-xv < h) below.push(rows[t]);
+    }
+    return { above: argsortBy(score, Int32Array.from(above)), below: argsortBy(score, Int32Array.from(below)) };
+  }
+  const order = sortedOrder(score);
+  // below: cutoff − h < R < cutoff; above: cutoff ≤ R < cutoff + h (x computed as R − c, as in the fit).
+  let a = lowerBound(score, order, cutoff - h, true);
+  while (a < order.length && !(-(score[order[a]] - cutoff) < h)) a++;
+  while (a > 0 && -(score[order[a - 1]] - cutoff) < h && score[order[a - 1]] < cutoff) a--;
+  const c = lowerBound(score, order, cutoff, false);
+  let e = lowerBound(score, order, cutoff + h, false);
+  while (e > c && !(score[order[e - 1]] - cutoff < h)) e--;
+  while (e < order.length && score[order[e]] - cutoff < h) e++;
+  // Views, not copies: see valuesAt.
+  return { above: order.subarray(c, e), below: order.subarray(Math.min(a, c), c) };
+}
+
+/** x = R − c, kernel weights and the count of distinct scores of window units sorted by score. */
+function coordinates(
+  score: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  index: Int32Array,
+): { x: Float64Array; k: Float64Array; distinct: number } {
+  const n = index.length;
+  const r = valuesAt(index, score);
+  const x = new Float64Array(n);
+  const k = new Float64Array(n);
+  let distinct = 0;
+  for (let t = 0; t < n; t++) {
+    x[t] = r[t] - cutoff;
+    if (t === 0 || x[t] !== x[t - 1]) distinct++;
+  }
+  // The kernel's loop is chosen once, not per unit (window units have |x| < h).
+  if (kernel === 'triangular') for (let t = 0; t < n; t++) k[t] = 1 - Math.abs(x[t] / h);
+  else for (let t = 0; t < n; t++) k[t] = kernelWeight(kernel, x[t] / h);
+  return { x, k, distinct };
+}
+
+/** One side's fit from its window positions (sorted by score). */
+function fitPositions(
+  score: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  above: boolean,
+  withQuadratic: boolean,
+  positions: Int32Array,
+): SideFit {
+  const index = positions;
+  const { x, k, distinct } = coordinates(score, cutoff, h, kernel, index);
+  const n = index.length;
+  if (n < 3) {
+    throw new CutlineError(
+      `the window (bandwidth ${fmt(h)}) holds ${n} unit${n === 1 ? '' : 's'} ${sideName(above)} the cutoff; ` +
+        `at least 3 are needed — widen the bandwidth`,
+    );
+  }
+  if (distinct < 2) {
+    throw new CutlineError(
+      `all scores in the window ${sideName(above)} the cutoff are equal (bandwidth ${fmt(h)}); a line cannot be fitted — widen the bandwidth`,
+    );
+  }
+  const [w0, w1] = polyWeights(x, k, h, 1, above);
+  const fit: SideFit = { above, index, x, k, coef1: [w0, w1], distinct };
+  if (withQuadratic) {
+    if (distinct < 3 || n < 4) {
+      throw new CutlineError(
+        `the window (bandwidth ${fmt(h)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) ` +
+          `for the bias correction's quadratic fit — widen the bandwidth`,
+      );
+    }
+    const [q0, q1, q2] = polyWeights(x, k, h, 2, above);
+    fit.coef2 = [q0, q1, q2];
+  }
+  return fit;
+}
+
+/** The units and positions of one side's window, sorted by score: all a nearest-neighbour pass needs. */
+export interface SortedSide {
+  index: Int32Array;
+  x: Float64Array;
+}
+
+/**
+ * Only the x² coefficient weights of one side's local quadratic fit (for the
+ * curvature pilots of the bandwidth rules, which need nothing else), not cached.
+ */
+export function curvatureWeights(
+  score: ArrayLike<number>,
+  cutoff: number,
+  b: number,
+  kernel: KernelName,
+  above: boolean,
+): SortedSide & { q2: Float64Array } {
+  checkBandwidth(b);
+  const pos = windowPositions(score, cutoff, b);
+  const index = above ? pos.above : pos.below;
+  const n = index.length;
+  const { x, k, distinct } = coordinates(score, cutoff, b, kernel, index);
+  if (n < 4 || distinct < 3) {
+    throw new CutlineError(
+      `the curvature pilot (bandwidth ${fmt(b)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) for a quadratic fit — type a bandwidth instead`,
+    );
+  }
+  return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2] };
+}
+
+function checkBandwidth(h: number): void {
+  if (!(h > 0) || !Number.isFinite(h)) throw new CutlineError(`bandwidth must be a positive number, got ${h}`);
+}
+
+// A check asks for the same side fit several times (bandwidth pilots shared by
+// two rules, the estimates and the complier distributions at one bandwidth):
+// the last few fits of each score array are kept. A fit with the quadratic
+// serves a request without it.
+const FITS_KEPT = 6;
+const fitCache = new WeakMap<object, Map<string, SideFit>>();
+
+function cachedFit(
+  score: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  above: boolean,
+  withQuadratic: boolean,
+  positions: () => Int32Array,
+): SideFit {
+  let cache = fitCache.get(score as object);
+  if (!cache) {
+    cache = new Map();
+    fitCache.set(score as object, cache);
+  }
+  const key = (q: boolean): string => `${cutoff}|${h}|${kernel}|${above}|${q}`;
+  const hit = cache.get(key(true)) ?? (withQuadratic ? undefined : cache.get(key(false)));
+  if (hit) return hit;
+  const fit = fitPositions(score, cutoff, h, kernel, above, withQuadratic, positions());
+  cache.set(key(withQuadratic), fit);
+  if (cache.size > FITS_KEPT) cache.delete(cache.keys().next().value as string);
+  return fit;
+}
+
+/**
+ * The units of one side inside the window, sorted by score, with their fit
+ * weights. `rows` (optional) restricts the data to those positions.
+ */
+export function sideFit(
+  score: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  above: boolean,
+  withQuadratic: boolean,
+  rows?: Int32Array,
+): SideFit {
+  checkBandwidth(h);
+  const pos = (): Int32Array => {
+    const p = windowPositions(score, cutoff, h, rows);
+    return above ? p.above : p.below;
+  };
+  if (rows) return fitPositions(score, cutoff, h, kernel, above, withQuadratic, pos());
+  return cachedFit(score, cutoff, h, kernel, above, withQuadratic, pos);
+}
+
+/** Both sides of the window at bandwidth h. */
+export function boundaryWindow(
+  score: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  options: { quadratic?: boolean; rows?: Int32Array } = {},
+): Window {
+  const quad = options.quadratic ?? true;
+  checkBandwidth(h);
+  if (options.rows) {
+    const pos = windowPositions(score, cutoff, h, options.rows);
+    return {
+      cutoff,
+      bandwidth: h,
+      kernel,
+      above: fitPositions(score, cutoff, h, kernel, true, quad, pos.above),
+      below: fitPositions(score, cutoff, h, kernel, false, quad, pos.below),
+    };
+  }
+  let pos: { above: Int32Array; below: Int32Array } | undefined;
+  const get = (): { above: Int32Array; below: Int32Array } => (pos ??= windowPositions(score, cutoff, h));
+  return {
+    cutoff,
+    bandwidth: h,
+    kernel,
+    above: cachedFit(score, cutoff, h, kernel, true, quad, () => get().above),
+    below: cachedFit(score, cutoff, h, kernel, false, quad, () => get().below),
+  };
+}
+
+/** Σ_i w_i V[index_i]: a smoother applied to a data column. */
+export function applyWeights(w: Float64Array, index: Int32Array, values: ArrayLike<number>): number {
+  let s = 0;
+  for (let t = 0; t < w.length; t++) s += w[t] * values[index[t]];
+  return s;
+}
