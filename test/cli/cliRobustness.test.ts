@@ -228,7 +228,7 @@ describe('designs at the edges', () => {
     expect(j.outcomes[0].effect.estimate).toBeCloseTo(j.outcomes[0].jump.estimate, 12);
     expect(j.outcomes[0].warnings.join(' ')).toMatch(/nearly sharp design the test has little power/);
   });
-  // Bug left for the lead (src/engine/check.ts + bandwidthMse.ts): the validity test's bandwidth is the
+  // Bug left for the lead (src/engine/check/check.ts + bandwidthMse.ts): the validity test's bandwidth is the
   // mse of take-up, whose pilot b is 0 when take-up is constant on each side; the user sees
   // "bandwidth must be a positive number, got 0" for a bandwidth they never typed.
   test('sharp design (default rule) runs, or names the problem', () => {
@@ -268,7 +268,7 @@ describe('designs at the edges', () => {
     return `${s},${(o.i * 37) % 100 < (s >= 0 ? 70 : 20) ? 1 : 0},${f5(o.y)}`;
   }));
   test('heavy ties (integer scores): a rule bandwidth is widened to fit, a typed one is refused clearly, warnings when it works', () => {
-    // The rules' pilots and bandwidths widen to 3 distinct scores a side (src/engine/bandwidthTies.ts).
+    // The rules' pilots and bandwidths widen to 3 distinct scores a side (src/engine/bandwidth/bandwidthTies.ts).
     const d = expectJson(run([ties(), ...opts('--json')]));
     expect(d.bandwidth.value).toBeGreaterThan(3);
     expect(d.warnings.join(' ')).toMatch(/distinct scores below the cutoff/);

@@ -1,4 +1,4 @@
-// Cutline's own rule for mass points (src/engine/bandwidthTies.ts), checked by hand computation:
+// Cutline's own rule for mass points (src/engine/bandwidth/bandwidthTies.ts), checked by hand computation:
 // no outside source exists for this choice (common practice is to widen; the 1.25 factor is ours).
 import { widenForTies } from '../../../src/engine/bandwidth/bandwidthTies';
 import { chooseBandwidth } from '../../../src/engine/bandwidth/bandwidth';

@@ -1,6 +1,6 @@
 /**
  * Implied complier distributions (METHODS.md §5): the built-in consistency
- * check against the fuzzy effect of src/engine/jumpAt.ts, convergence to the
+ * check against the fuzzy effect of src/engine/fit/jumpAt.ts, convergence to the
  * known complier distributions of a simulated design, and reporting of
  * decreasing / negative stretches.
  */

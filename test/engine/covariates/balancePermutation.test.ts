@@ -88,7 +88,7 @@ describe('permutationBalanceTest', () => {
 });
 
 describe('order of the rows', () => {
-  // A property of Cutline's tie rules (src/engine/covariatePermutation.ts): no outside source needed.
+  // A property of Cutline's tie rules (src/engine/covariates/covariatePermutation.ts): no outside source needed.
   test('shuffling the rows leaves the statistic and the p-value unchanged, with tied scores and covariates', () => {
     const n = 400;
     const score = Float64Array.from({ length: n }, (_, i) => Math.round(((i * 7919) % n) / 20) - 10); // integers −10..10

@@ -1,6 +1,6 @@
 /**
  * The nearest-neighbour (`nn`) standard errors of the jump (METHODS.md §2,
- * src/engine/residuals.ts) against an independent reference. Source of every
+ * src/engine/fit/residuals.ts) against an independent reference. Source of every
  * reference value: NumPy, brute-force nearest neighbours,
  * test/fixtures/estimates/make_nn.py — intercept and x² weights by
  * numpy.linalg.lstsq on each side, neighbours by sorting all other window units
@@ -82,7 +82,7 @@ describe.each(fixture.cases.map((c) => [c.name, c] as const))('%s, unit by unit'
 });
 
 test('nn standard errors do not depend on the order of the rows (all ties at the 3rd distance are taken)', () => {
-  // Property of the rule itself (src/engine/residuals.ts); the data: the tied grid of make_nn.py.
+  // Property of the rule itself (src/engine/fit/residuals.ts); the data: the tied grid of make_nn.py.
   const D = readCsv('data_tied.csv');
   const n = D.score.length;
   const perm = Array.from({ length: n }, (_, i) => (i * 17 + 5) % n); // 17 is coprime with n = 41
