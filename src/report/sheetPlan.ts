@@ -1,0 +1,278 @@
+/**
+ * The summary model (summaryModel.ts) laid out as a live sheet: every cell
+ * with its value or formula, the settings cells named, the charts drawn from
+ * the spilled tables. A pure function; the writers (excelWorkbook.ts, the
+ * in-page workbook of the browser test) only apply it.
+ *
+ * What makes the sheet live (issue 11):
+ * - the settings block holds the cutoff, the bandwidths and the options as
+ *   cells (named `cutline_cutoff`, …), and every result formula refers to
+ *   them, so typing a new cutoff recalculates the sheet;
+ * - cells the model gives as values but which a worksheet can compute are
+ *   written as formulas here: the verdict at 5% (`IF` on the p-value), the
+ *   Holm-adjusted p-values across outcomes (Holm 1979, step-down: the
+ *   adjusted p of outcome i is the largest (m − r_j + 1)·p_j over the p_j ≤ p_i,
+ *   capped at 1, r_j the rank of p_j), and the values at which the complier
+ *   distributions are drawn (an even grid over the outcome's range);
+ * - the rest of the model's values (the descriptive columns the functions
+ *   give no formula for) are written as values and set in grey, with a note.
+ *
+ * @example
+ *   const plan = planSheet(model, { source: 'Data!A1:H6001' });
+ *   plan.cells.find((c) => c.address === 'B6'); // { value: 60, style: 'setting', … }
+ */
+import { cellAddress, columnLetters } from './formulas';
+import { PlanCell, PlanChart, SheetPlan } from './workbookPort';
+import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
+
+/** What a plan cell is for, beyond its look (the unit tests read this). */
+export type CellRole = 'setting' | 'result' | 'input' | 'text' | 'static';
+
+export interface RolePlanCell extends PlanCell {
+  role: CellRole;
+}
+
+export interface LiveSheetPlan extends SheetPlan {
+  cells: RolePlanCell[];
+  /** Address of the cutoff cell (e.g. `B6`). */
+  cutoffCell: string;
+  /** The settings block, top-left to bottom-right (e.g. `A6:B18`). */
+  settingsBlock: string;
+}
+
+/** A1 address without `$` (row 1-based, col 0-based). */
+export const a1 = (row: number, col: number): string => `${columnLetters(col)}${row}`;
+
+const strip = (address: string): string => address.replace(/\$/g, '');
+
+const rowOf = (address: string): number => Number(/\d+$/.exec(strip(address))![0]);
+
+/** The note under the title of a live sheet. */
+export const LIVE_NOTE =
+  'Every result below is a live CUTLINE formula over the data and the settings cells: type a new cutoff (or bandwidth, kernel, draws, …) in column B of the settings and the whole sheet recalculates. Grey numbers are descriptive values at the cutoff the sheet was written with.';
+
+/** The name given to a setting's cell (sheet-scoped). */
+export const settingName = (key: string): string => `cutline_${key.replace(/[^A-Za-z0-9]+/g, '_')}`;
+
+export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetPlan {
+  const cells: RolePlanCell[] = [];
+  const put = (c: RolePlanCell): void => {
+    cells.push(c);
+  };
+  const text = (row: number, col: number, value: string, style?: PlanCell['style']): void =>
+    put({ address: a1(row, col), value, format: 'text', style, role: 'text' });
+
+  text(1, 0, m.title, 'title');
+  text(2, 0, LIVE_NOTE, 'note');
+  text(3, 0, `Data: ${opts.source}`);
+
+  // Settings: key, value (or formula), meaning.
+  const firstSettingRow = Math.min(...m.settings.map((s) => rowOf(s.address)));
+  text(firstSettingRow - 2, 0, `Settings (type here; the options passed to every formula are ${strip(m.settingsRange)})`, 'heading');
+  ['setting', 'value', 'meaning'].forEach((h, i) => text(firstSettingRow - 1, i, h, 'header'));
+  const names: SheetPlan['names'] = [];
+  let lastSettingRow = firstSettingRow;
+  for (const s of m.settings) {
+    const row = rowOf(s.address);
+    lastSettingRow = Math.max(lastSettingRow, row);
+    text(row, 0, s.key);
+    const at = strip(s.address);
+    if (s.formula) put({ address: at, formula: `=${s.formula}`, format: s.format, style: 'setting', role: 'result' });
+    else put({ address: at, value: s.value, format: s.format, style: 'setting', role: 'setting' });
+    text(row, 2, s.label);
+    names.push({ name: settingName(s.key), address: at, comment: s.label });
+  }
+  const cutoff = m.settings.find((s) => s.key === 'cutoff');
+  if (!cutoff) throw new Error('the summary model has no cutoff setting');
+
+  for (const t of m.tables) planTable(t, put, text);
+  holmFormulas(m, cells);
+
+  for (const b of m.textBlocks) {
+    text(b.row, 0, b.id === 'verdicts' ? `${b.title} (at the cutoff ${cutoff.value}, when the sheet was written)` : b.title, 'heading');
+    b.lines.forEach((l, i) => text(b.row + 1 + i, 0, l, b.id === 'verdicts' ? 'verdict' : undefined));
+  }
+  for (const t of m.plotTables) planTable(t, put, text);
+  complierGrids(m, cells);
+
+  const charts = m.charts.flatMap((c, i): PlanChart[] => {
+    if (!c.anchor) return [];
+    text(c.anchor.row - 1, c.anchor.col, `Figure ${i + 1}. ${c.title}`, 'heading');
+    const chart = chartOf(m, c.id, c.table);
+    return chart ? [{ ...chart, id: c.id, title: c.title, xTitle: c.xLabel, yTitle: c.yLabel, anchor: a1(c.anchor.row, c.anchor.col), alt: c.alt }] : [];
+  });
+
+  return {
+    sheet: m.sheetName,
+    cells,
+    names,
+    charts,
+    columnWidths: [44, 16, 16, 16, 16, 16, 16, 16, 16, 16],
+    cutoffCell: strip(cutoff.address),
+    settingsBlock: `A${firstSettingRow}:B${lastSettingRow}`,
+  };
+}
+
+function planTable(t: SummaryTable, put: (c: RolePlanCell) => void, text: (r: number, c: number, v: string, s?: PlanCell['style']) => void): void {
+  text(t.row - 1, 0, t.title, 'heading');
+  t.columns.forEach((h, i) => text(t.row, i, h, 'header'));
+  const live = t.columns.map((_, i) => t.rows.some((r) => r[i]?.formula !== undefined));
+  t.rows.forEach((r, j) =>
+    r.forEach((c, i) => {
+      const at = a1(t.row + 1 + j, i);
+      if (c.formula !== undefined) {
+        put({
+          address: at,
+          formula: `=${c.formula}`,
+          format: c.format,
+          role: 'result',
+          ...(c.spills ? { spill: spillArea(t, j, i) } : {}),
+        });
+      } else if (insideSpill(t, j, i)) {
+        // Filled by a spilling formula: leave the cell empty.
+      } else if (c.value !== null && c.value !== '') {
+        const isText = c.format === 'text' || typeof c.value === 'string';
+        put({ address: at, value: c.value, format: c.format, role: isText && !live[i] ? 'text' : 'static' });
+      }
+    }),
+  );
+  // Verdict columns become formulas on the p-value beside them.
+  const p = t.columns.indexOf('p-value');
+  const v = t.columns.indexOf('verdict at 5%');
+  if (p >= 0 && v >= 0) {
+    t.rows.forEach((r, j) => {
+      if (r[p]?.formula === undefined) return;
+      const row = t.row + 1 + j;
+      put({ address: a1(row, v), formula: `=IF(${a1(row, p)}<=0.05,"contradicted","not contradicted")`, format: 'text', role: 'result' });
+    });
+  }
+  if (t.note) text(t.row + t.rows.length + 1, 0, t.note, 'note');
+}
+
+/** The area a spilling formula at row j, column i of a table fills: to the table's end and its last column (or the next formula column). */
+function spillArea(t: SummaryTable, j: number, i: number): { rows: number; cols: number } {
+  let cols = 1;
+  while (i + cols < t.columns.length && t.rows[j][i + cols]?.formula === undefined) cols++;
+  return { rows: t.rows.length - j, cols };
+}
+
+function insideSpill(t: SummaryTable, j: number, i: number): boolean {
+  for (let jj = 0; jj <= j; jj++) {
+    for (let ii = 0; ii <= i; ii++) {
+      const c = t.rows[jj]?.[ii];
+      if (!c?.spills || (jj === j && ii === i)) continue;
+      const a = spillArea(t, jj, ii);
+      if (j < jj + a.rows && i < ii + a.cols) return true;
+    }
+  }
+  return false;
+}
+
+/** Holm-adjusted p-values across the outcomes, live from the p-value cells of the validity table. */
+function holmFormulas(m: SummaryModel, cells: RolePlanCell[]): void {
+  const t = m.tables.find((x) => x.id === 'validity');
+  if (!t) return;
+  const p = t.columns.indexOf('p-value');
+  const h = t.columns.indexOf('Holm-adjusted p');
+  if (p < 0 || h < 0 || t.rows.some((r) => r[p]?.formula === undefined)) return;
+  const ps = t.rows.map((_, j) => a1(t.row + 1 + j, p));
+  const all = `${ps[0]}:${ps[ps.length - 1]}`;
+  const n = ps.length;
+  t.rows.forEach((_, j) => {
+    const terms = ps.map((pj) => `IF(${pj}<=${ps[j]},(${n}-COUNTIF(${all},"<"&${pj}))*${pj},0)`);
+    replace(cells, { address: a1(t.row + 1 + j, h), formula: `=MIN(1,MAX(${terms.join(',')}))`, format: 'pvalue', role: 'result' });
+  });
+}
+
+/** The values at which a complier table is evaluated: an even grid over the outcome's range (a formula on the data). */
+function complierGrids(m: SummaryModel, cells: RolePlanCell[]): void {
+  for (const t of m.plotTables) {
+    if (!t.id.startsWith('compliers:')) continue;
+    const f = t.rows[0]?.[1]?.formula;
+    // CUTLINE.COMPLIERCDF(score, treated, outcome, …): the outcome's range is the third argument.
+    const outcome = f ? splitArgs(f)[2] : undefined;
+    if (!outcome) continue;
+    const k = t.rows.length;
+    t.rows.forEach((_, j) => {
+      const formula = `=MIN(${outcome})+(MAX(${outcome})-MIN(${outcome}))*${j}/${Math.max(1, k - 1)}`;
+      replace(cells, { address: a1(t.row + 1 + j, 0), formula, format: 'number', role: 'input' });
+    });
+  }
+}
+
+function replace(cells: RolePlanCell[], c: RolePlanCell): void {
+  const k = cells.findIndex((x) => x.address === c.address);
+  if (k >= 0) cells[k] = c;
+  else cells.push(c);
+}
+
+/** The top-level arguments of `NAME(a, b, …)`. */
+export function splitArgs(formula: string): string[] {
+  const open = formula.indexOf('(');
+  const out: string[] = [];
+  let depth = 0;
+  let quoted = false;
+  let start = open + 1;
+  for (let i = open + 1; i < formula.length; i++) {
+    const ch = formula[i];
+    if (ch === '"' || ch === "'") quoted = !quoted;
+    if (quoted) continue;
+    if (ch === '(') depth++;
+    else if (ch === ')') {
+      if (depth === 0) {
+        out.push(formula.slice(start, i).trim());
+        break;
+      }
+      depth--;
+    } else if (ch === ',' && depth === 0) {
+      out.push(formula.slice(start, i).trim());
+      start = i + 1;
+    }
+  }
+  return out;
+}
+
+/** A chart from the table behind it (the model's `table` id). */
+function chartOf(m: SummaryModel, id: string, tableId?: string): Pick<PlanChart, 'kind' | 'series'> | undefined {
+  const col = (t: SummaryTable, i: number, from: number, to: number): string => `${a1(t.row + 1 + from, i)}:${a1(t.row + 1 + to, i)}`;
+  if (id === 'histogram') {
+    const t = m.plotTables.find((x) => x.id === tableId);
+    if (!t || t.rows.length === 0) return undefined;
+    return { kind: 'column', series: [{ name: 'units in the bin', x: col(t, 3, 0, t.rows.length - 1), y: col(t, 5, 0, t.rows.length - 1) }] };
+  }
+  if (id.startsWith('bins:')) {
+    const t = m.plotTables.find((x) => x.id === tableId);
+    if (!t || t.rows.length === 0) return undefined;
+    const below = t.rows.filter((r) => r[0].value === 'below').length;
+    const series: PlanChart['series'] = [];
+    if (below > 0) series.push({ name: 'below the cutoff', x: col(t, 3, 0, below - 1), y: col(t, 4, 0, below - 1), fit: true });
+    if (below < t.rows.length) series.push({ name: 'above the cutoff', x: col(t, 3, below, t.rows.length - 1), y: col(t, 4, below, t.rows.length - 1), fit: true });
+    return { kind: 'scatter', series };
+  }
+  if (id.startsWith('compliers:')) {
+    const t = m.plotTables.find((x) => x.id === tableId);
+    if (!t || t.rows.length === 0) return undefined;
+    const n = t.rows.length - 1;
+    return {
+      kind: 'line',
+      series: [
+        { name: 'treated compliers', x: col(t, 0, 0, n), y: col(t, 1, 0, n) },
+        { name: 'untreated compliers', x: col(t, 0, 0, n), y: col(t, 2, 0, n) },
+      ],
+    };
+  }
+  if (id === 'sensitivity') {
+    const t = m.tables.find((x) => x.id === 'sensitivity');
+    if (!t || t.rows.length === 0) return undefined;
+    const byOutcome = new Map<string, number[]>();
+    t.rows.forEach((r, j) => byOutcome.set(String(r[0].value), [...(byOutcome.get(String(r[0].value)) ?? []), j]));
+    return {
+      kind: 'line',
+      series: [...byOutcome].map(([name, js]) => ({ name, x: col(t, 2, js[0], js[js.length - 1]), y: col(t, 3, js[0], js[js.length - 1]) })),
+    };
+  }
+  return undefined;
+}
+
+export type { SummaryCell };
+export { cellAddress };
