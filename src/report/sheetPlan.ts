@@ -38,6 +38,13 @@ export interface LiveSheetPlan extends SheetPlan {
   cutoffCell: string;
   /** The settings block, top-left to bottom-right (e.g. `A6:B18`). */
   settingsBlock: string;
+  /**
+   * The engine's value of every cell a formula computes (the formula's own
+   * cell, and each cell a spilling formula fills), from the model: what the
+   * sheet must show once calculated. The complier tables are left out (their
+   * grid is the sheet's own, see complierGrids).
+   */
+  expected: Array<{ address: string; value: number | string }>;
 }
 
 /** A1 address without `$` (row 1-based, col 0-based). */
@@ -56,9 +63,7 @@ export const settingName = (key: string): string => `cutline_${key.replace(/[^A-
 
 export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetPlan {
   const cells: RolePlanCell[] = [];
-  const put = (c: RolePlanCell): void => {
-    cells.push(c);
-  };
+  const put = (c: RolePlanCell): void => replace(cells, c);
   const text = (row: number, col: number, value: string, style?: PlanCell['style']): void =>
     put({ address: a1(row, col), value, format: 'text', style, role: 'text' });
 
@@ -85,7 +90,8 @@ export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetP
   const cutoff = m.settings.find((s) => s.key === 'cutoff');
   if (!cutoff) throw new Error('the summary model has no cutoff setting');
 
-  for (const t of m.tables) planTable(t, put, text);
+  const testBandwidth = m.settings.find((s) => s.key === 'test_bandwidth');
+  for (const t of m.tables) planTable(t, put, text, testBandwidth ? strip(testBandwidth.address) : undefined);
   holmFormulas(m, cells);
 
   for (const b of m.textBlocks) {
@@ -94,6 +100,7 @@ export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetP
   }
   for (const t of m.plotTables) planTable(t, put, text);
   complierGrids(m, cells);
+  const expected = liveExpectations(m, m, cells);
 
   const charts = m.charts.flatMap((c, i): PlanChart[] => {
     if (!c.anchor) return [];
@@ -110,10 +117,43 @@ export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetP
     columnWidths: [44, 16, 16, 16, 16, 16, 16, 16, 16, 16],
     cutoffCell: strip(cutoff.address),
     settingsBlock: `A${firstSettingRow}:B${lastSettingRow}`,
+    expected,
   };
 }
 
-function planTable(t: SummaryTable, put: (c: RolePlanCell) => void, text: (r: number, c: number, v: string, s?: PlanCell['style']) => void): void {
+/**
+ * The values the cells of `layout`'s sheet must show when the engine's
+ * results are `m` (the same check at other settings, e.g. a new cutoff):
+ * each table of `m` is read at the place its namesake has in `layout`.
+ */
+export function liveExpectations(m: SummaryModel, layout: SummaryModel, cells: RolePlanCell[]): LiveSheetPlan['expected'] {
+  const computed = new Set(cells.filter((c) => c.formula !== undefined && c.role === 'result').map((c) => c.address));
+  const out: LiveSheetPlan['expected'] = [];
+  for (const s of m.settings) {
+    const at = strip(layout.settings.find((x) => x.key === s.key)?.address ?? s.address);
+    if (computed.has(at)) out.push({ address: at, value: s.value });
+  }
+  for (const t of [...m.tables, ...m.plotTables]) {
+    if (t.id.startsWith('compliers:')) continue;
+    const place = [...layout.tables, ...layout.plotTables].find((x) => x.id === t.id);
+    if (!place) continue;
+    t.rows.forEach((r, j) =>
+      r.forEach((c, i) => {
+        const at = a1(place.row + 1 + j, i);
+        if (c.value === null || c.value === '') return;
+        if (computed.has(at) || insideSpill(t, j, i)) out.push({ address: at, value: c.value });
+      }),
+    );
+  }
+  return out;
+}
+
+function planTable(
+  t: SummaryTable,
+  put: (c: RolePlanCell) => void,
+  text: (r: number, c: number, v: string, s?: PlanCell['style']) => void,
+  testBandwidth?: string,
+): void {
   text(t.row - 1, 0, t.title, 'heading');
   t.columns.forEach((h, i) => text(t.row, i, h, 'header'));
   const live = t.columns.map((_, i) => t.rows.some((r) => r[i]?.formula !== undefined));
@@ -144,6 +184,16 @@ function planTable(t: SummaryTable, put: (c: RolePlanCell) => void, text: (r: nu
       if (r[p]?.formula === undefined) return;
       const row = t.row + 1 + j;
       put({ address: a1(row, v), formula: `=IF(${a1(row, p)}<=0.05,"contradicted","not contradicted")`, format: 'text', role: 'result' });
+    });
+  }
+  // The sensitivity table's bandwidths: multiples of the test bandwidth's cell.
+  const m = t.columns.indexOf('multiple of the test bandwidth');
+  const b = t.columns.indexOf('bandwidth');
+  if (t.id === 'sensitivity' && testBandwidth && m >= 0 && b >= 0) {
+    t.rows.forEach((r, j) => {
+      const multiple = r[m]?.value;
+      if (typeof multiple !== 'number') return;
+      put({ address: a1(t.row + 1 + j, b), formula: `=${testBandwidth}*${multiple}`, format: 'number', role: 'result' });
     });
   }
   if (t.note) text(t.row + t.rows.length + 1, 0, t.note, 'note');
