@@ -12,7 +12,8 @@ import { parseCsv } from '../../src/input/csv';
 import { planSheet } from '../../src/report/sheetPlan';
 import { buildSummary, DataRanges } from '../../src/report/summaryModel';
 
-export const DEMO_CSV = path.resolve(__dirname, '../../demo/retrofit.csv');
+// From the sources (jest) or from a bundle run in the repository (the browser test).
+export const DEMO_CSV = [path.resolve(__dirname, '../../demo/retrofit.csv'), path.resolve(process.cwd(), 'demo/retrofit.csv')].find((f) => fs.existsSync(f))!;
 
 export const DEMO_ROLES = {
   score: 'energy_burden',
