@@ -12,6 +12,7 @@
  *   done.verdicts; // ['Units scoring at or above 60 are eligible. …', …]
  */
 import { buildSummary } from '../report/summaryModel';
+import type { Verdict } from '../report/summaryTypes';
 import { LiveSheetPlan, planSheet } from '../report/sheetPlan';
 import { CancelledError, WorkbookPort } from '../report/workbookPort';
 import { runCheck } from './engine';
@@ -20,7 +21,7 @@ import { ReadyCheck } from './paneInputs';
 
 export interface CheckDone {
   sheet: string;
-  verdicts: string[];
+  verdicts: Verdict[];
   result: CheckResult;
   plan: LiveSheetPlan;
 }

@@ -185,7 +185,9 @@ async function run(): Promise<void> {
   showStep(step);
   try {
     const done = await runGuidedCheck(port, ready, setProgress, () => cancelRequested);
-    $('verdict-list').replaceChildren(...done.verdicts.map((t) => Object.assign(document.createElement('li'), { textContent: t })));
+    $('verdict-list').replaceChildren(
+      ...done.verdicts.map((v) => Object.assign(document.createElement('li'), { textContent: v.text, className: v.concern ? 'concern' : 'fine' })),
+    );
     $('verdicts').hidden = false;
     $('pane-status').textContent = `The summary is on the sheet “${done.sheet}”.`;
   } catch (e) {

@@ -19,7 +19,8 @@ declare global {
 
 const table = new Map<string, CustomFunction>();
 const shim = captureAssociations(table);
-// The bundle calls CustomFunctions.associate at load; office.js may define its own object: keep ours.
+// The bundle calls CustomFunctions.associate at load. office.js, loaded first, adds its own `associate` to
+// the object it finds (this one) and keeps what the bundle associates in `_association.mappings`; read below.
 Object.defineProperty(window, 'CustomFunctions', { get: () => shim, set: () => undefined, configurable: true });
 
 /** A CSV text's cells as a spreadsheet shows them after opening the file: numbers as numbers. */
@@ -39,6 +40,9 @@ async function build(): Promise<void> {
     fetch('functions.json').then((r) => (r.ok ? (r.json() as Promise<FunctionsJson>) : { functions: [] })),
     fetch('demo/retrofit.csv').then((r) => r.text()),
   ]);
+  // office.js installs its own `associate` on the object it finds, keeping the table in `_association.mappings`.
+  const office = (window as unknown as { CustomFunctions?: { _association?: { mappings?: Record<string, CustomFunction> } } }).CustomFunctions;
+  for (const [id, fn] of Object.entries(office?._association?.mappings ?? {})) table.set(id.toUpperCase(), fn);
   const hints: SpillHints = new Map();
   let wb: InPageWorkbook | undefined;
   window.cutlineTest.functions = registerCutline(table, meta, hints, () => undefined);

@@ -60,6 +60,9 @@ function serve(): Promise<http.Server> {
     '/demo/retrofit.csv': path.join(repo, 'demo/retrofit.csv'),
     '/fabric.min.css': path.join(repo, 'node_modules/office-ui-fabric-core/dist/css/fabric.min.css'),
   };
+  // For trying the pane with another build's functions (a folder holding functions.js and functions.json).
+  const other = process.env.CUTLINE_FUNCTIONS_DIR;
+  if (other) for (const f of ['functions.js', 'functions.json']) special[`/${f}`] = path.join(other, f);
   const server = http.createServer((req, res) => {
     const url = decodeURIComponent((req.url ?? '/').split('?')[0]);
     let file: string | undefined = special[url];
@@ -69,6 +72,7 @@ function serve(): Promise<http.Server> {
     }
     if (!file) file = roots.map((r) => path.join(r, url)).find((f) => f.startsWith(r0(f)) && fs.existsSync(f) && fs.statSync(f).isFile());
     if (!file || !fs.existsSync(file)) {
+      if (process.env.CUTLINE_DEBUG) process.stdout.write(`    [server] 404 ${url}\n`);
       res.writeHead(404);
       res.end();
       return;
@@ -181,6 +185,7 @@ async function main(): Promise<void> {
   const page = await browser.newPage({ viewport: { width: 380, height: 900 } });
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
+  if (process.env.CUTLINE_DEBUG) page.on('console', (m) => process.stdout.write(`    [page] ${m.text()}\n`));
   await page.addInitScript({ path: path.join(site, 'harness.js') });
   const at60 = demoSummary(60, ['Data']);
   let sheet = '';
@@ -188,7 +193,7 @@ async function main(): Promise<void> {
     await page.goto(`http://127.0.0.1:${port}/taskpane.html`);
     await page.waitForFunction(() => window.cutlineTest?.workbook !== undefined || window.cutlineTest?.error !== undefined, undefined, { timeout: 60000 });
     const harnessError = await page.evaluate(() => window.cutlineTest.error);
-    if (harnessError) throw new Error(`the in-page workbook did not start: ${harnessError}`);
+    if (harnessError) throw new Error(`the in-page workbook did not start: ${harnessError}\npage errors: ${errors.join('; ')}`);
     await page.waitForFunction(() => /Point at your data/.test(document.getElementById('pane-status')?.textContent ?? ''), undefined, { timeout: 30000 });
     const functions = await page.evaluate(() => window.cutlineTest.functions);
     process.stdout.write(`  functions registered from the add-in's table: ${functions.join(', ') || 'none'}\n`);
@@ -317,7 +322,7 @@ async function main(): Promise<void> {
       assert.equal(seen[seen.length - 1], 100);
       sheet = (await page.evaluate(() => window.cutlineTest.workbook!.hf.getSheetNames())).find((s) => s !== 'Data')!;
       const verdicts = await page.$$eval('#verdict-list li', (li) => li.map((x) => x.textContent ?? ''));
-      assert.deepEqual(verdicts, at60.model.verdicts);
+      assert.deepEqual(verdicts, at60.model.verdicts.map((v) => v.text));
       assert.equal(sheet, at60.plan.sheet);
       await shot(page, 'taskpane.png');
     });
