@@ -45,6 +45,25 @@ export interface LiveSheetPlan extends SheetPlan {
    * grid is the sheet's own, see complierGrids).
    */
   expected: Array<{ address: string; value: number | string }>;
+  /** Where the spilled tables behind the charts sit. */
+  plots: PlotPlace[];
+}
+
+/**
+ * A spilled table behind a chart: the row of its formula (the spill starts
+ * with the function's own header row), the rows kept free for it, and for a
+ * complier table the rows of its grid.
+ */
+export interface PlotPlace {
+  id: string;
+  row: number;
+  rows: number;
+  /** Bins: how many the engine laid below the cutoff (the chart's first series). */
+  below?: number;
+  /** Bins at the time of writing. */
+  bins?: number;
+  /** Complier tables: grid points. */
+  grid?: number;
 }
 
 /** A1 address without `$` (row 1-based, col 0-based). */
@@ -98,14 +117,13 @@ export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetP
     text(b.row, 0, b.id === 'verdicts' ? `${b.title} (at the cutoff ${cutoff.value}, when the sheet was written)` : b.title, 'heading');
     b.lines.forEach((l, i) => text(b.row + 1 + i, 0, l, b.id === 'verdicts' ? 'verdict' : undefined));
   }
-  for (const t of m.plotTables) planTable(t, put, text);
-  complierGrids(m, cells);
-  const expected = liveExpectations(m, m, cells);
+  const plots = planPlotTables(m, put, text);
+  const expected = liveExpectations(m, m, cells, plots);
 
   const charts = m.charts.flatMap((c, i): PlanChart[] => {
     if (!c.anchor) return [];
     text(c.anchor.row - 1, c.anchor.col, `Figure ${i + 1}. ${c.title}`, 'heading');
-    const chart = chartOf(m, c.id, c.table);
+    const chart = chartOf(m, c.id, c.table, plots);
     return chart ? [{ ...chart, id: c.id, title: c.title, xTitle: c.xLabel, yTitle: c.yLabel, anchor: a1(c.anchor.row, c.anchor.col), alt: c.alt }] : [];
   });
 
@@ -118,6 +136,7 @@ export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetP
     cutoffCell: strip(cutoff.address),
     settingsBlock: `A${firstSettingRow}:B${lastSettingRow}`,
     expected,
+    plots,
   };
 }
 
@@ -126,16 +145,26 @@ export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetP
  * results are `m` (the same check at other settings, e.g. a new cutoff):
  * each table of `m` is read at the place its namesake has in `layout`.
  */
-export function liveExpectations(m: SummaryModel, layout: SummaryModel, cells: RolePlanCell[]): LiveSheetPlan['expected'] {
+export function liveExpectations(m: SummaryModel, layout: SummaryModel, cells: RolePlanCell[], plots: PlotPlace[]): LiveSheetPlan['expected'] {
   const computed = new Set(cells.filter((c) => c.formula !== undefined && c.role === 'result').map((c) => c.address));
   const out: LiveSheetPlan['expected'] = [];
   for (const s of m.settings) {
     const at = strip(layout.settings.find((x) => x.key === s.key)?.address ?? s.address);
     if (computed.has(at)) out.push({ address: at, value: s.value });
   }
-  for (const t of [...m.tables, ...m.plotTables]) {
-    if (t.id.startsWith('compliers:')) continue;
-    const place = [...layout.tables, ...layout.plotTables].find((x) => x.id === t.id);
+  for (const t of m.plotTables) {
+    const place = plots.find((p) => p.id === t.id);
+    if (!place || !t.id.startsWith('bins:')) continue;
+    // BINS spills its header, then midpoint, mean, units and side of each bin.
+    ['bin midpoint', 'mean', 'units', 'side'].forEach((h, i) => out.push({ address: a1(place.row, i), value: h }));
+    t.rows.forEach((r, j) =>
+      [r[3].value, r[4].value, r[5].value, r[0].value].forEach((v, i) => {
+        if (v !== null) out.push({ address: a1(place.row + 1 + j, i), value: v });
+      }),
+    );
+  }
+  for (const t of m.tables) {
+    const place = layout.tables.find((x) => x.id === t.id);
     if (!place) continue;
     t.rows.forEach((r, j) =>
       r.forEach((c, i) => {
@@ -234,20 +263,56 @@ function holmFormulas(m: SummaryModel, cells: RolePlanCell[]): void {
   });
 }
 
-/** The values at which a complier table is evaluated: an even grid over the outcome's range (a formula on the data). */
-function complierGrids(m: SummaryModel, cells: RolePlanCell[]): void {
+/** Grid points of a complier table. */
+const GRID = 30;
+
+/**
+ * The tables behind the charts, each a spilling formula with the area kept
+ * free below it: BINS (its header, one row per bin: midpoint, mean, units,
+ * side, then its notes), and for each outcome an even grid of its values
+ * (formulas on the data) with COMPLIERCDF of the treated and the untreated
+ * compliers at those values (each spills one value per grid point).
+ */
+function planPlotTables(
+  m: SummaryModel,
+  put: (c: RolePlanCell) => void,
+  text: (r: number, c: number, v: string, s?: PlanCell['style']) => void,
+): PlotPlace[] {
+  const places: PlotPlace[] = [];
+  let next = m.plotTables[0]?.row ?? 0;
   for (const t of m.plotTables) {
-    if (!t.id.startsWith('compliers:')) continue;
-    const f = t.rows[0]?.[1]?.formula;
-    // CUTLINE.COMPLIERCDF(score, treated, outcome, …): the outcome's range is the third argument.
-    const outcome = f ? splitArgs(f)[2] : undefined;
-    if (!outcome) continue;
-    const k = t.rows.length;
-    t.rows.forEach((_, j) => {
-      const formula = `=MIN(${outcome})+(MAX(${outcome})-MIN(${outcome}))*${j}/${Math.max(1, k - 1)}`;
-      replace(cells, { address: a1(t.row + 1 + j, 0), formula, format: 'number', role: 'input' });
-    });
+    const f = t.rows[0]?.find((c) => c.formula !== undefined)?.formula;
+    if (!f) continue;
+    if (t.id.startsWith('bins:')) {
+      const bins = t.rows.length;
+      // Room for more bins at another cutoff, and BINS' own lines under the bins (counts, rows, warnings).
+      const rows = 1 + bins * 2 + 20;
+      text(next - 1, 0, t.title, 'heading');
+      put({ address: a1(next, 0), formula: `=${f}`, role: 'result', format: 'number', spill: { rows, cols: 4 } });
+      places.push({ id: t.id, row: next, rows, bins, below: t.rows.filter((r) => r[0].value === 'below').length });
+      if (t.note) text(next + rows, 0, t.note, 'note');
+      next += rows + 3;
+    } else if (t.id.startsWith('compliers:')) {
+      const args = splitArgs(f);
+      const outcome = args[2];
+      const grid = `${a1(next + 1, 0)}:${a1(next + GRID, 0)}`;
+      text(next - 1, 0, t.title, 'heading');
+      text(next, 0, `${t.columns[0]} (grid over the data)`, 'header');
+      text(next, 1, t.columns[1], 'header');
+      text(next, 2, t.columns[2], 'header');
+      for (let j = 0; j < GRID; j++) {
+        put({ address: a1(next + 1 + j, 0), formula: `=MIN(${outcome})+(MAX(${outcome})-MIN(${outcome}))*${j}/${GRID - 1}`, format: 'number', role: 'input' });
+      }
+      // COMPLIERCDF spills one value per grid point, beside the grid.
+      for (const [arm, col] of [[1, 1], [0, 2]] as const) {
+        const call = `CUTLINE.COMPLIERCDF(${[...args.slice(0, 4), grid, String(arm), ...args.slice(6)].join(', ')})`;
+        put({ address: a1(next + 1, col), formula: `=${call}`, format: 'number', role: 'result', spill: { rows: GRID, cols: 1 } });
+      }
+      places.push({ id: t.id, row: next, rows: GRID + 1, grid: GRID });
+      next += GRID + 4;
+    }
   }
+  return places;
 }
 
 function replace(cells: RolePlanCell[], c: RolePlanCell): void {
@@ -282,32 +347,30 @@ export function splitArgs(formula: string): string[] {
   return out;
 }
 
-/** A chart from the table behind it (the model's `table` id). */
-function chartOf(m: SummaryModel, id: string, tableId?: string): Pick<PlanChart, 'kind' | 'series'> | undefined {
-  const col = (t: SummaryTable, i: number, from: number, to: number): string => `${a1(t.row + 1 + from, i)}:${a1(t.row + 1 + to, i)}`;
+/** A chart from the spilled table behind it. */
+function chartOf(m: SummaryModel, id: string, tableId: string | undefined, plots: PlotPlace[]): Pick<PlanChart, 'kind' | 'series'> | undefined {
+  const col = (row: number, i: number, from: number, to: number): string => `${a1(row + 1 + from, i)}:${a1(row + 1 + to, i)}`;
+  const place = plots.find((p) => p.id === tableId);
   if (id === 'histogram') {
-    const t = m.plotTables.find((x) => x.id === tableId);
-    if (!t || t.rows.length === 0) return undefined;
-    return { kind: 'column', series: [{ name: 'units in the bin', x: col(t, 3, 0, t.rows.length - 1), y: col(t, 5, 0, t.rows.length - 1) }] };
+    if (!place?.bins) return undefined;
+    return { kind: 'column', series: [{ name: 'units in the bin', x: col(place.row, 0, 0, place.bins - 1), y: col(place.row, 2, 0, place.bins - 1) }] };
   }
   if (id.startsWith('bins:')) {
-    const t = m.plotTables.find((x) => x.id === tableId);
-    if (!t || t.rows.length === 0) return undefined;
-    const below = t.rows.filter((r) => r[0].value === 'below').length;
+    if (!place?.bins) return undefined;
+    const below = place.below ?? 0;
     const series: PlanChart['series'] = [];
-    if (below > 0) series.push({ name: 'below the cutoff', x: col(t, 3, 0, below - 1), y: col(t, 4, 0, below - 1), fit: true });
-    if (below < t.rows.length) series.push({ name: 'above the cutoff', x: col(t, 3, below, t.rows.length - 1), y: col(t, 4, below, t.rows.length - 1), fit: true });
+    if (below > 0) series.push({ name: 'below the cutoff', x: col(place.row, 0, 0, below - 1), y: col(place.row, 1, 0, below - 1), fit: true });
+    if (below < place.bins) series.push({ name: 'above the cutoff', x: col(place.row, 0, below, place.bins - 1), y: col(place.row, 1, below, place.bins - 1), fit: true });
     return { kind: 'scatter', series };
   }
   if (id.startsWith('compliers:')) {
-    const t = m.plotTables.find((x) => x.id === tableId);
-    if (!t || t.rows.length === 0) return undefined;
-    const n = t.rows.length - 1;
+    if (!place?.grid) return undefined;
+    const n = place.grid - 1;
     return {
       kind: 'line',
       series: [
-        { name: 'treated compliers', x: col(t, 0, 0, n), y: col(t, 1, 0, n) },
-        { name: 'untreated compliers', x: col(t, 0, 0, n), y: col(t, 2, 0, n) },
+        { name: 'treated compliers', x: col(place.row, 0, 0, n), y: col(place.row, 1, 0, n) },
+        { name: 'untreated compliers', x: col(place.row, 0, 0, n), y: col(place.row, 2, 0, n) },
       ],
     };
   }
@@ -318,7 +381,7 @@ function chartOf(m: SummaryModel, id: string, tableId?: string): Pick<PlanChart,
     t.rows.forEach((r, j) => byOutcome.set(String(r[0].value), [...(byOutcome.get(String(r[0].value)) ?? []), j]));
     return {
       kind: 'line',
-      series: [...byOutcome].map(([name, js]) => ({ name, x: col(t, 2, js[0], js[js.length - 1]), y: col(t, 3, js[0], js[js.length - 1]) })),
+      series: [...byOutcome].map(([name, js]) => ({ name, x: col(t.row, 2, js[0], js[js.length - 1]), y: col(t.row, 3, js[0], js[js.length - 1]) })),
     };
   }
   return undefined;

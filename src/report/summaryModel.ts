@@ -99,7 +99,8 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     address: at(),
   };
   if (r.test_bandwidth.rule !== 'typed') {
-    testCell.formula = F.testBandwidth({ score, treated }, { cutoff: cutoffCell.address, settings: settingsRange });
+    // The settings range and the row below it (purpose = test).
+    testCell.formula = F.testBandwidth(firstOutcome, { cutoff: cutoffCell.address, settings: `${F.cellAddress(optionsStart, 0)}:${F.cellAddress(optionsEnd + 1, 1)}` });
   }
   row = optionsStart;
   const opt = (key: string, label: string, value: number | string, format: CellFormat = 'text'): SettingRow => ({ key, label, value, format, address: at() });
@@ -117,6 +118,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     opt('trim', 'Trimming of the test', v.trim, 'number'),
     opt('multiplier', 'Multipliers of the test', v.multiplier),
     opt('sensitivity', 'Multiples of the test bandwidth shown', sensitivity.length ? sensitivity.join(', ') : 'off'),
+    opt('purpose', 'Read by the test bandwidth’s formula only (its settings range takes this row too)', 'test'),
   ];
   const refs: F.SettingRefs = { cutoff: cutoffCell.address, bandwidth: bwCell.address, settings: settingsRange };
 

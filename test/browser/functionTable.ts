@@ -123,6 +123,8 @@ export function registerCutline(table: Map<string, CustomFunction>, meta: Functi
       method,
       sizeOfResultArrayMethod: sizeMethod,
       vectorizationForbidden: true,
+      // Recalculated on every change of the workbook, so that a settled asynchronous result shows (see settleAll).
+      isVolatile: true,
       parameters: f.parameters.map((p) => ({ argumentType: FunctionArgumentType.ANY, optionalArg: p.optional === true })),
     };
     translations[id] = id;
@@ -208,4 +210,41 @@ function toHf(out: unknown, hint: { rows: number; cols: number }): unknown {
     return new CellError(ErrorType.SPILL, `the result needs ${rows.length} × ${rows[0]?.length ?? 0} cells; ${hint.rows} × ${hint.cols} are free`);
   }
   return SimpleRangeValue.onlyValues(rows.map((r) => r.map(hfCell)) as never);
+}
+
+/**
+ * Excel's VLOOKUP reads a table that a function returns (an array) as well
+ * as a range; HyperFormula's takes ranges only. The in-page workbook's
+ * VLOOKUP is replaced by one that takes both (exact match, the only kind the
+ * summary sheet uses; Excel compares texts ignoring case).
+ */
+export function registerArrayVlookup(): void {
+  const same = (a: unknown, b: unknown): boolean =>
+    typeof a === 'string' && typeof b === 'string' ? a.toLowerCase() === b.toLowerCase() : a === b;
+  class ArrayLookup extends FunctionPlugin {
+    static implementedFunctions = {
+      VLOOKUP: {
+        method: 'vlookup',
+        parameters: [
+          { argumentType: FunctionArgumentType.NOERROR },
+          { argumentType: FunctionArgumentType.RANGE },
+          { argumentType: FunctionArgumentType.NUMBER },
+          { argumentType: FunctionArgumentType.BOOLEAN, defaultValue: true },
+        ],
+      },
+    };
+    vlookup(ast: { args: unknown[] }, state: unknown): unknown {
+      const self = this as unknown as { runFunction: (a: unknown, s: unknown, m: unknown, f: (...x: unknown[]) => unknown) => unknown; metadata: (n: string) => unknown };
+      return self.runFunction(ast.args, state, self.metadata('VLOOKUP'), (key: unknown, range: unknown, index: unknown, sorted: unknown) => {
+        if (sorted !== false) return new CellError(ErrorType.NA, 'the in-page workbook emulates exact-match VLOOKUP only');
+        const rows = (range as SimpleRangeValue).rawData();
+        const k = Number(index);
+        if (!(k >= 1 && k <= (rows[0]?.length ?? 0))) return new CellError(ErrorType.REF, 'column index outside the table');
+        const hit = rows.find((r) => same(r[0], key));
+        return hit === undefined ? new CellError(ErrorType.NA, `${String(key)} not found`) : hit[k - 1];
+      });
+    }
+  }
+  if (HyperFormula.getRegisteredFunctionNames('enGB').includes('VLOOKUP')) HyperFormula.unregisterFunction('VLOOKUP');
+  HyperFormula.registerFunctionPlugin(ArrayLookup as never, { enGB: { VLOOKUP: 'VLOOKUP' }, enUS: { VLOOKUP: 'VLOOKUP' } } as never);
 }

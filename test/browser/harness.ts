@@ -5,7 +5,7 @@
  * in-page workbook holding the demo data with those functions registered in
  * its formula engine, and hands it to the pane as its workbook port.
  */
-import { captureAssociations, CustomFunction, FunctionsJson, registerCutline, SpillHints } from './functionTable';
+import { captureAssociations, CustomFunction, FunctionsJson, registerArrayVlookup, registerCutline, SpillHints } from './functionTable';
 import { InPageWorkbook } from './inPageWorkbook';
 import { sheetHtml } from './sheetView';
 import type { WorkbookPort } from '../../src/report/workbookPort';
@@ -46,6 +46,7 @@ async function build(): Promise<void> {
   const hints: SpillHints = new Map();
   let wb: InPageWorkbook | undefined;
   window.cutlineTest.functions = registerCutline(table, meta, hints, () => undefined);
+  registerArrayVlookup();
   wb = new InPageWorkbook({ sheets: { Data: csvCells(csv) }, active: 'Data', hints });
   window.cutlineTest.workbook = wb;
   resolve(wb);

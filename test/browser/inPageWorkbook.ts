@@ -31,7 +31,10 @@ export class InPageWorkbook implements WorkbookPort {
   readonly writes: string[] = [];
 
   constructor(private readonly opts: InPageOptions) {
-    this.hf = HyperFormula.buildFromSheets(opts.sheets as never, { licenseKey: 'gpl-v3', useColumnIndex: true });
+    this.hf = HyperFormula.buildFromSheets(opts.sheets as never, { licenseKey: 'gpl-v3', useColumnIndex: true, smartRounding: false });
+    // Excel reads TRUE and FALSE in a formula as the logical values; HyperFormula has them as functions.
+    this.hf.addNamedExpression('TRUE', '=TRUE()');
+    this.hf.addNamedExpression('FALSE', '=FALSE()');
     this.active = opts.active;
     this.selection = opts.selection;
   }
@@ -144,7 +147,8 @@ export class InPageWorkbook implements WorkbookPort {
 
   async settle(progress?: Progress): Promise<void> {
     await settleAll(
-      () => this.hf.rebuildAndRecalculate(),
+      // A change anywhere recalculates the (volatile) CUTLINE formulas, which now find their settled results.
+      () => this.hf.setCellContents({ sheet: this.id(this.opts.active), row: 0, col: 200 }, [[null]]),
       (done, total) => progress?.(done, total, `Recalculating (${total - done} formulas still running)…`),
     );
   }
