@@ -12,7 +12,7 @@ const benches: Array<[string, string[]]> = [
   ['bench/checkBench.ts', []],
   ['bench/validityBench.ts', []],
   ['bench/densityBench.ts', []],
-  ['bench/validityMonteCarlo.ts', [quick ? '200' : '1000']],
+  ['bench/validityMonteCarlo.ts', quick ? ['--quick'] : []],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],
 ];
 let failed = 0;

@@ -36,9 +36,10 @@ for (const n of [100_000, 1_000_000]) {
   const d = data(n, 1);
   const opts = { bandwidth: h, kernel: 'triangular' as const };
   const r = validityTest(d.score, d.treated, d.outcome, 0, opts);
+  if (!r.applicable) throw new Error(r.reason);
   const whole = best(() => validityTest(d.score, d.treated, d.outcome, 0, opts), 5);
   const ro = resolveValidityOptions(opts);
-  const { sets } = validityMomentSets(d.score, d.treated, d.outcome, 0, opts, ro);
+  const sets = validityMomentSets(d.score, d.treated, d.outcome, 0, opts, ro).windows.map((w) => w.set!);
   const kappa = Math.sqrt(0.3 * Math.log(n));
   const bn = Math.sqrt((0.4 * Math.log(n)) / Math.log(Math.log(n)));
   const phis = sets.map((m) => selection(m, kappa, bn));

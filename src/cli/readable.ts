@@ -3,6 +3,8 @@
  * block per question an evaluator asks, with the cautions of METHODS.md.
  */
 import { CheckResult, EstimateSummary, OutcomeResult } from '../engine/check/check';
+import { ValidityReport } from '../engine/validity/validityReport';
+import { ValidityResult } from '../engine/validity/validityTest';
 import { interval, num, padLeft, padRight, pval, wrap } from './format';
 
 const COLS = [28, 12, 11, 26, 26, 9];
@@ -38,25 +40,73 @@ function armName(arm: 0 | 1): string {
   return arm === 1 ? 'treated compliers' : 'untreated compliers';
 }
 
+function armRestrictions(arm: 0 | 1): string {
+  return arm === 1 ? 'treated-arm restrictions' : 'untreated-arm restrictions';
+}
+
+/** One version's numbers and worst interval; `units` says how to read the interval's ends. */
+function versionLines(title: string, v: ValidityResult, within: string | undefined, units: string): string[] {
+  const w = v.worst;
+  const cell = w.cell !== undefined ? ` in the cell ${within} = ${w.cell_label ?? w.cell}` : '';
+  return [
+    `  ${title}: p = ${pval(v.pvalue)}; statistic ${num(v.statistic)}, 5% critical value ${num(v.critical_value)}, ${v.intervals} intervals`,
+    `    worst interval (largest t): ${armName(w.arm)}, outcomes from ${num(w.from)} to ${num(w.to)}${units}${cell} (t = ${num(w.t)})`,
+  ];
+}
+
+function decidedBy(v: ValidityReport): string {
+  if (v.guard === 'off') return 'the trend guard is off (--trend-guard off), so the headline is the published test on the observed outcomes';
+  if (v.guard === 'few outcome values')
+    return (
+      'the outcome takes few distinct values in the window (no more than the grid size), so the trend guard does not apply ' +
+      'and the headline is the published test on the observed outcomes'
+    );
+  const which =
+    v.decided_by === 'both'
+      ? 'both versions give the same p-value'
+      : v.decided_by === 'trend_adjusted'
+        ? 'the version with the trend removed decided (its p-value is the larger)'
+        : 'the version on the observed outcomes decided (its p-value is the larger)';
+  return `${which}; the headline p-value is the larger of the two, so the design is rejected only when both versions reject`;
+}
+
 function validityBlock(o: OutcomeResult): string[] {
   const v = o.validity;
   const lines: string[] = [];
+  const within = v.within ? ` (within cells of ${v.within})` : '';
+  if (!v.applicable) {
+    lines.push(`${o.name}${within}: no test run`);
+    lines.push(`  ${wrap(`Why: ${v.reason}.`, 96, '  ')}`);
+    return lines;
+  }
   const verdict = v.rejects ? 'the data contradict the design at 5%' : 'the data do not contradict the design at 5%';
-  const holm = v.pvalue_holm !== v.pvalue ? `, Holm-adjusted ${pval(v.pvalue_holm)}` : '';
-  lines.push(`${o.name}${v.within ? ` (within cells of ${v.within})` : ''}: ${verdict} (p = ${pval(v.pvalue)}${holm})`);
-  lines.push(
-    `  statistic ${num(v.statistic)}, 5% critical value ${num(v.critical_value)}, ${v.intervals} intervals, ${v.draws} draws (seed ${v.seed}), ` +
-      `${v.window.below} below / ${v.window.above} above in the window`,
-  );
-  const cell = v.worst.cell !== undefined ? ` in the cell ${v.within} = ${v.worst.cell_label ?? v.worst.cell}` : '';
-  lines.push(
-    `  worst interval (largest t): ${armName(v.worst.arm)}, outcomes from ${num(v.worst.from)} to ${num(v.worst.to)}${cell} (t = ${num(v.worst.t)})`,
-  );
-  if (v.by_bandwidth.length > 1) {
-    const cells = v.by_bandwidth.map((b) =>
-      b.error !== undefined ? `×${b.multiple}: cannot run` : `×${b.multiple} (${num(b.bandwidth, 3)}): p ${pval(b.pvalue!)}${b.rejects ? ' reject' : ''}`,
+  const holm = v.pvalue_holm !== undefined && v.pvalue_holm !== v.pvalue ? `, Holm-adjusted ${pval(v.pvalue_holm)}` : '';
+  lines.push(`${o.name}${within}: ${verdict} (p = ${pval(v.pvalue)}${holm})`);
+  lines.push(`  ${wrap(decidedBy(v), 96, '  ')}`);
+  const ob = v.observed;
+  lines.push(...versionLines('observed outcomes (the published test)', ob, v.within, ''));
+  if (v.trend_adjusted)
+    lines.push(
+      ...versionLines(
+        "outcomes with each side's quadratic trend in the score removed",
+        v.trend_adjusted,
+        v.within,
+        ' in outcome units at the cutoff',
+      ),
     );
-    lines.push(`  by bandwidth: ${cells.join('; ')}`);
+  for (const a of ob.left_out) {
+    const cell = a.cell !== undefined ? ` in the cell ${v.within} = ${a.cell_label ?? a.cell}` : '';
+    lines.push(`  ${wrap(`left out${cell}: the ${armRestrictions(a.arm)}, because ${a.reason}`, 96, '    ')}`);
+  }
+  lines.push(`  ${ob.draws} draws (seed ${ob.seed}); ${ob.counts.below} below / ${ob.counts.above} above in the window`);
+  if (v.by_bandwidth.length > 1) {
+    const cells = v.by_bandwidth.map((b) => {
+      if (b.error !== undefined) return `×${b.multiple}: cannot run`;
+      if (b.applicable === false) return `×${b.multiple}: not applicable (sharp)`;
+      const both = b.pvalue_trend_adjusted !== undefined ? ` (observed ${pval(b.pvalue_observed!)}, trend removed ${pval(b.pvalue_trend_adjusted)})` : '';
+      return `×${b.multiple} (${num(b.bandwidth, 3)}): p ${pval(b.pvalue!)}${both}${b.rejects ? ' reject' : ''}`;
+    });
+    lines.push(`  by bandwidth: ${wrap(cells.join('; '), 82, '    ')}`);
   }
   if (o.compliers) {
     lines.push(`  complier means: treated ${num(o.compliers.mean_treated)}, untreated ${num(o.compliers.mean_untreated)}`);

@@ -1,0 +1,124 @@
+/**
+ * The trend guard's outcomes (METHODS.md §4, "The trend guard", Cutline's
+ * addition to Arai, Hsu, Kitagawa, Mourifié & Wan 2022): on each side of the
+ * cutoff, the ordinary least squares fit Y = β₀ + β₁x + β₂x², x = R − c, over
+ * every unit of that side used in the calculation (after the donut, whatever
+ * the bandwidth), and
+ *
+ *   Ỹ_i = Y_i − (β̂₁ x_i + β̂₂ x_i²).
+ *
+ * The removed function is 0 at x = 0 from both sides, so (Ỹ, D) and (Y, D)
+ * have the same joint distribution at the cutoff: the test's null hypothesis
+ * is unchanged, only the slope of the indicators inside the window flattens.
+ * The fit does not depend on the bandwidth, so one Ỹ serves every bandwidth
+ * of the sensitivity table and every covariate cell (the pooled fit).
+ *
+ * Choices Cutline states: "above" is x ≥ 0 (METHODS §1) whatever the
+ * eligible side; the least squares are solved by Householder QR on the
+ * columns (1, u, u²), u = x / max|x| on the side, so that scores far from
+ * the cutoff or in large units do not spoil the solve; a side with fewer
+ * than 3 distinct scores is fitted with the highest degree its scores
+ * identify (2 distinct → a line, 1 → nothing removed) and says so in `degree`.
+ *
+ * @example
+ *   const t = trendRemoved(score, bill, 60);
+ *   t.values[i]; // bill[i] − (β̂₁(score[i] − 60) + β̂₂(score[i] − 60)²)
+ *   t.above.slope; t.above.curvature; // β̂₁, β̂₂ above the cutoff
+ */
+
+export interface SideTrend {
+  /** β̂₀ (the side's fitted value at the cutoff), β̂₁, β̂₂ in the score's and outcome's units. */
+  intercept: number;
+  slope: number;
+  curvature: number;
+  /** Polynomial degree actually fitted (2 unless the side has fewer than 3 distinct scores). */
+  degree: 0 | 1 | 2;
+  units: number;
+}
+
+export interface TrendRemoved {
+  /** Ỹ at every data row of the calculation; rows outside `rows` keep Y. */
+  values: Float64Array;
+  below: SideTrend;
+  above: SideTrend;
+}
+
+/** Least squares of y on the columns of a (n × p, column arrays, modified in place) by Householder QR. */
+function householderSolve(cols: Float64Array[], y: Float64Array): number[] {
+  const p = cols.length;
+  const n = y.length;
+  const diag: number[] = [];
+  for (let j = 0; j < p; j++) {
+    const a = cols[j];
+    let norm = 0;
+    for (let i = j; i < n; i++) norm += a[i] * a[i];
+    norm = Math.sqrt(norm);
+    const alpha = a[j] > 0 ? -norm : norm;
+    // v = a[j:] − alpha e₁, stored in a[j:]; H = I − 2vv'/v'v.
+    a[j] -= alpha;
+    let vv = 0;
+    for (let i = j; i < n; i++) vv += a[i] * a[i];
+    diag.push(alpha);
+    if (vv === 0) continue;
+    const apply = (b: Float64Array): void => {
+      let s = 0;
+      for (let i = j; i < n; i++) s += a[i] * b[i];
+      const f = (2 * s) / vv;
+      for (let i = j; i < n; i++) b[i] -= f * a[i];
+    };
+    for (let k = j + 1; k < p; k++) apply(cols[k]);
+    apply(y);
+  }
+  // Back substitution: R[j][j] = diag[j], R[j][k] = cols[k][j].
+  const beta = new Array<number>(p).fill(0);
+  for (let j = p - 1; j >= 0; j--) {
+    let s = y[j];
+    for (let k = j + 1; k < p; k++) s -= cols[k][j] * beta[k];
+    beta[j] = s / diag[j];
+  }
+  return beta;
+}
+
+function fitSide(x: number[], y: number[]): SideTrend {
+  const n = x.length;
+  const distinct = new Set(x).size;
+  const degree = Math.max(0, Math.min(2, distinct - 1)) as 0 | 1 | 2;
+  if (n === 0) return { intercept: 0, slope: 0, curvature: 0, degree: 0, units: 0 };
+  let s = 0;
+  for (const v of x) s = Math.max(s, Math.abs(v));
+  if (!(s > 0)) s = 1;
+  const cols: Float64Array[] = [];
+  for (let j = 0; j <= degree; j++) cols.push(Float64Array.from(x, (v) => Math.pow(v / s, j)));
+  const g = householderSolve(cols, Float64Array.from(y));
+  return {
+    intercept: g[0],
+    slope: degree >= 1 ? g[1] / s : 0,
+    curvature: degree >= 2 ? g[2] / (s * s) : 0,
+    degree,
+    units: n,
+  };
+}
+
+/** Ỹ on the rows used (all rows when `rows` is absent), from each side's own quadratic fit. */
+export function trendRemoved(score: ArrayLike<number>, outcome: ArrayLike<number>, cutoff: number, rows?: Int32Array): TrendRemoved {
+  const total = rows ? rows.length : score.length;
+  const xs: [number[], number[]] = [[], []];
+  const ys: [number[], number[]] = [[], []];
+  for (let t = 0; t < total; t++) {
+    const i = rows ? rows[t] : t;
+    const x = score[i] - cutoff;
+    const side = x >= 0 ? 1 : 0;
+    xs[side].push(x);
+    ys[side].push(outcome[i]);
+  }
+  const below = fitSide(xs[0], ys[0]);
+  const above = fitSide(xs[1], ys[1]);
+  const values = Float64Array.from(outcome);
+  for (let t = 0; t < total; t++) {
+    const i = rows ? rows[t] : t;
+    const x = score[i] - cutoff;
+    const f = x >= 0 ? above : below;
+    values[i] = outcome[i] - (f.slope * x + f.curvature * x * x);
+  }
+  return { values, below, above };
+}
