@@ -81,9 +81,9 @@ export function toJson(r: CheckResult): Record<string, unknown> {
       ? {
           density: {
             method: r.density.method,
-            log_ratio: r.density.log_ratio,
-            se: r.density.se,
-            pvalue: r.density.pvalue,
+            ...(r.density.method === 'none'
+              ? { reliable: false, reason: r.density.unreliable }
+              : { log_ratio: r.density.log_ratio, se: r.density.se, pvalue: r.density.pvalue }),
             ...(r.density.mccrary ? { mccrary: r.density.mccrary } : {}),
             ...(r.density.local_polynomial ? { local_polynomial: r.density.local_polynomial } : {}),
             caution: r.density.caution,

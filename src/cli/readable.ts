@@ -55,18 +55,18 @@ function versionLines(title: string, v: ValidityResult, within: string | undefin
 }
 
 function decidedBy(v: ValidityReport): string {
-  if (v.guard === 'off') return 'the trend guard is off (--trend-guard off), so the headline is the published test on the observed outcomes';
+  if (v.guard === 'off') return 'The trend guard is off (--trend-guard off), so the headline is the published test on the observed outcomes';
   if (v.guard === 'few outcome values')
     return (
-      'the outcome takes few distinct values in the window (no more than the grid size), so the trend guard does not apply ' +
+      'The outcome takes few distinct values in the window (no more than the grid size), so the trend guard does not apply ' +
       'and the headline is the published test on the observed outcomes'
     );
   const which =
     v.decided_by === 'both'
-      ? 'both versions give the same p-value'
+      ? 'Decided by both versions alike (they give the same p-value)'
       : v.decided_by === 'trend_adjusted'
-        ? 'the version with the trend removed decided (its p-value is the larger)'
-        : 'the version on the observed outcomes decided (its p-value is the larger)';
+        ? 'Decided by the version with the trend removed (its p-value is the larger)'
+        : 'Decided by the version on the observed outcomes (its p-value is the larger)';
   return `${which}; the headline p-value is the larger of the two, so the design is rejected only when both versions reject`;
 }
 
@@ -100,13 +100,21 @@ function validityBlock(o: OutcomeResult): string[] {
   }
   lines.push(`  ${ob.draws} draws (seed ${ob.seed}); ${ob.counts.below} below / ${ob.counts.above} above in the window`);
   if (v.by_bandwidth.length > 1) {
-    const cells = v.by_bandwidth.map((b) => {
-      if (b.error !== undefined) return `×${b.multiple}: cannot run`;
-      if (b.applicable === false) return `×${b.multiple}: not applicable (sharp)`;
-      const both = b.pvalue_trend_adjusted !== undefined ? ` (observed ${pval(b.pvalue_observed!)}, trend removed ${pval(b.pvalue_trend_adjusted)})` : '';
-      return `×${b.multiple} (${num(b.bandwidth, 3)}): p ${pval(b.pvalue!)}${both}${b.rejects ? ' reject' : ''}`;
-    });
-    lines.push(`  by bandwidth: ${wrap(cells.join('; '), 82, '    ')}`);
+    const guarded = v.by_bandwidth.some((b) => b.pvalue_trend_adjusted !== undefined);
+    lines.push(
+      padRight('  by bandwidth', 20) + padLeft('p', 6) + (guarded ? `${padLeft('observed', 11)}${padLeft('trend removed', 15)}` : ''),
+    );
+    for (const b of v.by_bandwidth) {
+      const label = padRight(`    ×${b.multiple} (${num(b.bandwidth, 3)})`, 20);
+      if (b.error !== undefined) lines.push(`${label}  cannot run: ${b.error}`);
+      else if (b.applicable === false) lines.push(`${label}  not applicable: the design is sharp in this window`);
+      else {
+        const extra = guarded
+          ? `${padLeft(pval(b.pvalue_observed!), 11)}${padLeft(b.pvalue_trend_adjusted === undefined ? '–' : pval(b.pvalue_trend_adjusted), 15)}`
+          : '';
+        lines.push(`${label}${padLeft(pval(b.pvalue!), 6)}${extra}${b.rejects ? '   rejects at 5%' : ''}`);
+      }
+    }
   }
   if (o.compliers) {
     lines.push(`  complier means: treated ${num(o.compliers.mean_treated)}, untreated ${num(o.compliers.mean_untreated)}`);
@@ -118,20 +126,22 @@ function densityBlock(r: CheckResult): string[] {
   const d = r.density;
   if (!d) return [];
   const lines = ['', 'Did units sort themselves across the cutoff? Density of the score'];
+  const unreliable = d.method === 'none' ? ' [not reliable here: mass points]' : '';
   if (d.local_polynomial) {
     const l = d.local_polynomial;
     lines.push(
-      `  local polynomial (Cattaneo, Jansson & Ma 2020)${d.method === 'local_polynomial' ? ' [headline]' : ''}: ` +
+      `  local polynomial (Cattaneo, Jansson & Ma 2020)${d.method === 'local_polynomial' ? ' [headline]' : unreliable}: ` +
         `densities ${num(l.density_below)} below, ${num(l.density_above)} above; log ratio ${num(l.log_ratio)} (se ${num(l.se)}), p = ${pval(l.pvalue)}; bandwidth ${num(l.bandwidth)}`,
     );
   }
   if (d.mccrary) {
     const m = d.mccrary;
     lines.push(
-      `  McCrary (2008)${d.method === 'mccrary' ? ' [headline]' : ''}: densities ${num(m.density_below)} below, ${num(m.density_above)} above; ` +
+      `  McCrary (2008)${d.method === 'mccrary' ? ' [headline]' : unreliable}: densities ${num(m.density_below)} below, ${num(m.density_above)} above; ` +
         `log ratio ${num(m.log_ratio)} (se ${num(m.se)}), p = ${pval(m.pvalue)}; bin ${num(m.bin)}, bandwidth ${num(m.bandwidth)}`,
     );
   }
+  if (d.method === 'none') lines.push(`  ${wrap(`No density test is shown as the headline: ${d.unreliable}.`, 96, '  ')}`);
   lines.push(`  ${wrap(d.caution, 96, '  ')}`);
   return lines;
 }
