@@ -40,6 +40,12 @@ function armName(arm: 0 | 1): string {
   return arm === 1 ? 'treated compliers' : 'untreated compliers';
 }
 
+/** "p = 0.123", or "p < 0.001". */
+function pIs(p: number): string {
+  const s = pval(p);
+  return s.startsWith('<') ? `p ${s.replace('<', '< ')}` : `p = ${s}`;
+}
+
 function armRestrictions(arm: 0 | 1): string {
   return arm === 1 ? 'treated-arm restrictions' : 'untreated-arm restrictions';
 }
@@ -49,7 +55,7 @@ function versionLines(title: string, v: ValidityResult, within: string | undefin
   const w = v.worst;
   const cell = w.cell !== undefined ? ` in the cell ${within} = ${w.cell_label ?? w.cell}` : '';
   return [
-    `  ${title}: p = ${pval(v.pvalue)}; statistic ${num(v.statistic)}, 5% critical value ${num(v.critical_value)}, ${v.intervals} intervals`,
+    `  ${title}: ${pIs(v.pvalue)}; statistic ${num(v.statistic)}, 5% critical value ${num(v.critical_value)}, ${v.intervals} intervals`,
     `    worst interval (largest t): ${armName(w.arm)}, outcomes from ${num(w.from)} to ${num(w.to)}${units}${cell} (t = ${num(w.t)})`,
   ];
 }
@@ -81,7 +87,7 @@ function validityBlock(o: OutcomeResult): string[] {
   }
   const verdict = v.rejects ? 'the data contradict the design at 5%' : 'the data do not contradict the design at 5%';
   const holm = v.pvalue_holm !== undefined && v.pvalue_holm !== v.pvalue ? `, Holm-adjusted ${pval(v.pvalue_holm)}` : '';
-  lines.push(`${o.name}${within}: ${verdict} (p = ${pval(v.pvalue)}${holm})`);
+  lines.push(`${o.name}${within}: ${verdict} (${pIs(v.pvalue)}${holm})`);
   lines.push(`  ${wrap(decidedBy(v), 96, '  ')}`);
   const ob = v.observed;
   lines.push(...versionLines('observed outcomes (the published test)', ob, v.within, ''));
@@ -96,7 +102,7 @@ function validityBlock(o: OutcomeResult): string[] {
     );
   for (const a of ob.left_out) {
     const cell = a.cell !== undefined ? ` in the cell ${v.within} = ${a.cell_label ?? a.cell}` : '';
-    lines.push(`  ${wrap(`left out${cell}: the ${armRestrictions(a.arm)}, because ${a.reason}`, 96, '    ')}`);
+    lines.push(`  ${wrap(`left out${cell}: the ${armRestrictions(a.arm)}, because ${a.reason}.`, 96, '    ')}`);
   }
   lines.push(`  ${ob.draws} draws (seed ${ob.seed}); ${ob.counts.below} below / ${ob.counts.above} above in the window`);
   if (v.by_bandwidth.length > 1) {

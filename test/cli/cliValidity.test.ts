@@ -68,7 +68,7 @@ describe('the trend guard', () => {
     expect(j.pvalue_observed).toBeLessThanOrEqual(0.05);
     expect(j.rejects).toBe(false);
     expect(r.out).toContain('bill: the data do not contradict the design at 5%');
-    expect(r.out).toMatch(/observed outcomes \(the published test\): p = <0\.001/);
+    expect(r.out).toMatch(/observed outcomes \(the published test\): p < 0\.001/);
     expect(r.out).toMatch(/outcomes with each side's quadratic trend in the score removed: p = \d\.\d{3}/);
     expect(r.out).toMatch(/worst interval \(largest t\): .* in outcome units at the cutoff \(t = /);
     expect(r.out).toMatch(/by bandwidth\s+p\s+observed\s+trend removed/);

@@ -227,15 +227,15 @@ function momentsFor(
     left.push({
       arm: 1,
       reason:
-        `no unit ${other} the cutoff in the window is treated, so the treated-arm restrictions only say that a share is not ` +
-        `negative: they cannot fail and were left out`,
+        `no unit ${other} the cutoff in the window is treated, so these restrictions only say that a share is not negative ` +
+        `and cannot fail`,
     });
   if (treatedPlus === plusSide.index.length)
     left.push({
       arm: 0,
       reason:
-        `every unit ${where} the cutoff in the window is treated, so the untreated-arm restrictions only say that a share is not ` +
-        `negative: they cannot fail and were left out`,
+        `every unit ${where} the cutoff in the window is treated, so these restrictions only say that a share is not negative ` +
+        `and cannot fail`,
     });
   const keep: number[] = [];
   for (let l = 0; l < all.count; l++) if (!left.some((a) => a.arm === all.arm[l])) keep.push(l);

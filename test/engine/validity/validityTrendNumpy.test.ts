@@ -27,7 +27,7 @@ function badMoments(c: Case, y: number[], ref: Version): number {
   expect(cls.bins).toBe(ref.bins);
   expect(cls.distinct).toBe(ref.distinct);
   const m = validityMoments(win, cls, c.treated, y, c.trim, 1);
-  const kept = [...Array(m.count).keys()].filter((l) => c.arms.includes(m.arm[l]));
+  const kept = [...Array(m.count).keys()].filter((l) => (c.arms as number[]).includes(m.arm[l]));
   expect(kept.length).toBe(ref.moments.length);
   let bad = 0;
   ref.moments.forEach((f, j) => {
@@ -83,7 +83,7 @@ describe.each(fixture.cases.map((c) => [c.name, c] as const))('%s (NumPy fixture
     expect(rep.observed.intervals).toBe(obs.moments.length);
     // One arm left: G'(G'+1)/2 intervals; both arms: G'(G'+1).
     expect(obs.moments.length).toBe((c.arms.length * obs.bins * (obs.bins + 1)) / 2);
-    expect(rep.observed.left_out.map((l) => l.arm)).toEqual([1, 0].filter((arm) => !c.arms.includes(arm)));
+    expect(rep.observed.left_out.map((l) => l.arm)).toEqual([1, 0].filter((arm) => !(c.arms as number[]).includes(arm)));
     const worst = (v: Version) => v.moments.find((m) => m.t === v.T)!;
     // The adjusted worst interval's ends are Ỹ values (outcome units at the cutoff): equal to 1e-9.
     expect(a.worst.arm).toBe(worst(adj).arm);
