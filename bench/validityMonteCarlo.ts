@@ -1,5 +1,5 @@
 /**
- * Monte Carlo size and power of the validity test (METHODS.md §4, §9) at 5%:
+ * Monte Carlo size and power of the validity test (docs/methods.md §4.8) at 5%:
  * the published test (Arai, Hsu, Kitagawa, Mourifié & Wan 2022: the observed
  * version, `trendGuard: false`) and Cutline's guarded test (the headline:
  * the larger p-value of the observed and trend-removed versions), side by

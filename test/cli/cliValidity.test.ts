@@ -1,5 +1,5 @@
-// `cutline check` and the validity test's two rules (METHODS.md §4: arms that test nothing, the trend guard) and the
-// density test with mass points (§6): the JSON keys of DESIGN.md and the plain words of the readable output.
+// `cutline check` and the validity test's two rules (docs/methods.md §4.7, §4.8) and the
+// density test with mass points (§6.3): the JSON keys of DESIGN.md and the plain words of the readable output.
 // Data are deterministic (no randomness); expectations follow from the rules' statements.
 import { spawnSync } from 'child_process';
 import * as fs from 'fs';

@@ -1,5 +1,5 @@
 /**
- * The trend guard's outcomes (METHODS.md §4, "The trend guard", Cutline's
+ * The trend guard's outcomes (docs/methods.md §4.8, Cutline's
  * addition to Arai, Hsu, Kitagawa, Mourifié & Wan 2022): on each side of the
  * cutoff, the ordinary least squares fit Y = β₀ + β₁x + β₂x², x = R − c, over
  * every unit of that side used in the calculation (after the donut, whatever
@@ -13,7 +13,7 @@
  * The fit does not depend on the bandwidth, so one Ỹ serves every bandwidth
  * of the sensitivity table and every covariate cell (the pooled fit).
  *
- * Choices Cutline states: "above" is x ≥ 0 (METHODS §1) whatever the
+ * Choices Cutline states: "above" is x ≥ 0 (docs/methods.md §1) whatever the
  * eligible side; the least squares are solved by Householder QR on the
  * columns (1, u, u²), u = x / max|x| on the side, so that scores far from
  * the cutoff or in large units do not spoil the solve; a side with fewer

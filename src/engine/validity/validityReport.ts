@@ -1,5 +1,5 @@
 /**
- * The validity test as Cutline reports it (METHODS.md §4): the published test
+ * The validity test as Cutline reports it (docs/methods.md §4, §4.8): the published test
  * of Arai, Hsu, Kitagawa, Mourifié & Wan (2022, Quantitative Economics 13(1))
  * on the observed outcomes, the same test on the trend guard's outcomes Ỹ
  * (trendRemoved.ts), the headline p-value, and both at every bandwidth of the

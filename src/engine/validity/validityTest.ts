@@ -21,7 +21,7 @@
  *   disjoint units, so their draws are independent); the take-up jump reported
  *   is that of the pooled window;
  * - the take-up jump counts as significantly positive when its hc0 z ≥ 1.645;
- * - arms that test nothing (METHODS §4, Cutline's rule): when no unit of the
+ * - arms that test nothing (docs/methods.md §4.7, Cutline's rule): when no unit of the
  *   window on the non-eligible side is treated, the arm-1 moments are left out
  *   of T and of every draw; when no unit of the window on the eligible side is
  *   untreated, the arm-0 moments are; both (a sharp design) → the result is
@@ -280,7 +280,7 @@ export function validityMomentSets(
   return { windows, cellIds: ids };
 }
 
-/** The reason a sharp design gets no p-value (METHODS §4, arms that test nothing). */
+/** The reason a sharp design gets no p-value (docs/methods.md §4.7). */
 export function sharpReason(sign: 1 | -1, cells: boolean): string {
   const where = sign === 1 ? 'above' : 'below';
   const other = sign === 1 ? 'below' : 'above';

@@ -1,5 +1,5 @@
 /**
- * The trend guard's outcomes (METHODS.md §4): properties that follow from the
+ * The trend guard's outcomes (docs/methods.md §4.8): properties that follow from the
  * definition (no outside source needed) — a quadratic trend per side is removed
  * exactly, the removed function is 0 at the cutoff, only the rows used enter
  * the fit, and sides with too few distinct scores fall back to a lower degree.

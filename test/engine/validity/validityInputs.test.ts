@@ -54,7 +54,7 @@ test('treated other than 0/1 and non-finite outcomes name the row', () => {
 });
 
 test('a sharp design is not applicable (no p-value, never NaN), even with trim 0', () => {
-  // Before the arms rule (METHODS §4, arms that test nothing) this ran and gave a p-value.
+  // Before the arms rule (docs/methods.md §4.7) this ran and gave a p-value.
   const t = d.score.map((s) => (s >= 0 ? 1 : 0));
   const r = validityTest(d.score, t, d.outcome, 0, { ...base, trim: 0 });
   expect(r.applicable).toBe(false);

@@ -1,5 +1,5 @@
 /**
- * The validity report (METHODS.md §4, the trend guard): which version is the
+ * The validity report (docs/methods.md §4.8): which version is the
  * headline, when the guard applies, the same Ỹ at every bandwidth and in
  * every covariate cell (the pooled fit), and the option to turn it off. The
  * expectations follow from the rule's statement; the numbers of each version
