@@ -128,7 +128,10 @@ export function validityReport(
     if (!(k > 0) || !Number.isFinite(k)) throw new CutlineError(`bandwidth multiples must be positive numbers, got ${k}`);
   const guardOn = options.trendGuard ?? true;
   if (typeof guardOn !== 'boolean') throw new CutlineError(`trendGuard must be true or false, got ${String(guardOn)}`);
-  const { multiples: _m, trendGuard: _g, ...testOptions } = options;
+  // The single-version test takes every option but these two.
+  const testOptions: ValidityOptions = { ...options };
+  delete (testOptions as ValidityReportOptions).multiples;
+  delete (testOptions as ValidityReportOptions).trendGuard;
 
   // The observed test first: it checks the columns before the fit reads them.
   const observed = validityTest(score, treated, outcome, cutoff, testOptions);
