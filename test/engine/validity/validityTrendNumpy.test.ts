@@ -11,12 +11,13 @@ import { intervalClass } from '../../../src/engine/validity/intervalClass';
 import { trendRemoved } from '../../../src/engine/validity/trendRemoved';
 import { validityMoments } from '../../../src/engine/validity/validityMoments';
 import { validityReport } from '../../../src/engine/validity/validityReport';
-import { validityTest } from '../../../src/engine/validity/validityTest';
+import { drawPlan, multiplierDraw, selection } from '../../../src/engine/validity/validityBootstrap';
+import { resolveValidityOptions, validityMomentSets, validityTest } from '../../../src/engine/validity/validityTest';
 
 const close = (a: number, b: number, tol = 1e-9): boolean => Math.abs(a - b) <= tol * Math.max(1, Math.abs(b));
 
 type Case = (typeof fixture.cases)[number];
-type Version = { bins: number; distinct: number; T: number; moments: Array<{ arm: number; first: number; last: number; estimate: number; se: number; t: number; from: number; to: number }> };
+type Version = { bins: number; distinct: number; T: number; tstar: number[]; pvalue: number; moments: Array<{ arm: number; first: number; last: number; estimate: number; se: number; t: number; from: number; to: number }> };
 
 const opts = (c: Case) => ({ bandwidth: c.h, kernel: 'triangular' as const, grid: c.grid, trim: c.trim, draws: 99, rows: Int32Array.from(c.used) });
 
@@ -37,6 +38,26 @@ function badMoments(c: Case, y: number[], ref: Version): number {
     if (m.cls.binMin[m.first[l]] !== f.from || m.cls.binMax[m.last[l]] !== f.to) bad++;
   });
   return bad;
+}
+
+/** The fixture's multipliers: ±1 from the parity of ((b + 1)(i + 1)·2654435761) mod 4294967291 (exact in doubles here). */
+const mult = (b: number, i: number): number => 1 - 2 * ((((b + 1) * (i + 1) * 2654435761) % 4294967291) % 2);
+
+/** The engine's bootstrap maxima T*_b with the fixture's multipliers (unit-level draws, as for Rademacher). */
+function engineDraws(c: Case, y: ArrayLike<number>, draws: number): number[] {
+  const o = opts(c);
+  const set = validityMomentSets(c.score, c.treated, y, c.cutoff, o, resolveValidityOptions(o)).windows[0].set!;
+  const win = boundaryWindow(c.score, c.cutoff, c.h, 'triangular', { quadratic: false, rows: o.rows });
+  const n = c.used.length;
+  const phi = selection(set, Math.sqrt(0.3 * Math.log(n)), Math.sqrt((0.4 * Math.log(n)) / Math.log(Math.log(n))));
+  const plan = drawPlan(set);
+  const out: number[] = [];
+  for (let b = 0; b < draws; b++) {
+    const uPlus = Array.from(win.above.index, (i) => mult(b, i));
+    const uMinus = Array.from(win.below.index, (i) => mult(b, i));
+    out.push(multiplierDraw(plan, uPlus, uMinus, phi, null));
+  }
+  return out;
 }
 
 describe.each(fixture.cases.map((c) => [c.name, c] as const))('%s (NumPy fixture)', (_name, c) => {
@@ -71,6 +92,18 @@ describe.each(fixture.cases.map((c) => [c.name, c] as const))('%s (NumPy fixture
   test('every moment on the observed and on the trend-removed outcomes agrees to 1e-9', () => {
     expect(badMoments(c, c.outcome, obs)).toBe(0);
     expect(badMoments(c, c.trend_removed, adj)).toBe(0);
+  });
+
+  test('with the same multipliers, every bootstrap maximum (1e-9) and both p-values agree with NumPy', () => {
+    const draws = (c as { draws: number }).draws;
+    const y = trendRemoved(c.score, c.outcome, c.cutoff, Int32Array.from(c.used)).values;
+    for (const [outcome, ref] of [[c.outcome, obs], [y, adj]] as const) {
+      const t = engineDraws(c, outcome, draws);
+      expect(t.filter((v, b) => !close(v, ref.tstar[b])).length).toBe(0);
+      expect(t.filter((v) => v >= ref.T).length / draws).toBe(ref.pvalue);
+    }
+    // The false alarm and its remedy in numbers: the published test rejects this valid design, the adjusted one does not.
+    expect([obs.pvalue, adj.pvalue > 0.05]).toEqual([0, true]);
   });
 
   test('both statistics, the interval counts, the arms left out and the worst intervals agree', () => {
