@@ -84,19 +84,27 @@ export type ValidityReportOutcome = ValidityReport | (ValidityNotApplicable & { 
 
 const fmt = (v: number): string => Number(v.toPrecision(4)).toString();
 
-/** Distinct outcome values among the rows with |R − c| < h (the window of every kernel). */
+/**
+ * Distinct outcome values among the rows with |R − c| < h (the window of every
+ * kernel), counted up to `limit` + 1: the guard only asks whether there are
+ * more than G, and a continuous outcome answers after G + 1 values.
+ */
 export function windowDistinctOutcomes(
   score: ArrayLike<number>,
   outcome: ArrayLike<number>,
   cutoff: number,
   bandwidth: number,
   rows?: Int32Array,
+  limit = Infinity,
 ): number {
   const seen = new Set<number>();
   const total = rows ? rows.length : score.length;
   for (let t = 0; t < total; t++) {
     const i = rows ? rows[t] : t;
-    if (Math.abs(score[i] - cutoff) < bandwidth) seen.add(outcome[i]);
+    if (Math.abs(score[i] - cutoff) < bandwidth) {
+      seen.add(outcome[i]);
+      if (seen.size > limit) break;
+    }
   }
   return seen.size;
 }
@@ -141,7 +149,7 @@ export function validityReport(
   const run = (bandwidth: number, obs?: ValidityOutcome): AtOne => {
     const o = obs ?? validityTest(score, treated, outcome, cutoff, { ...testOptions, bandwidth });
     if (!trend) return { observed: o, guard: 'off' };
-    if (!o.applicable || windowDistinctOutcomes(score, outcome, cutoff, bandwidth, options.rows) <= r.grid)
+    if (!o.applicable || windowDistinctOutcomes(score, outcome, cutoff, bandwidth, options.rows, r.grid) <= r.grid)
       return { observed: o, guard: 'few outcome values' };
     const adjusted = validityTest(score, treated, trend.values, cutoff, { ...testOptions, bandwidth }) as ValidityResult;
     return { observed: o, adjusted, guard: 'applied' };
