@@ -14,6 +14,7 @@ const benches: Array<[string, string[]]> = [
   ['bench/densityBench.ts', []],
   ['bench/validityMonteCarlo.ts', [quick ? '200' : '1000']],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],
+  ['bench/validitySizeBinding.ts', [quick ? '200' : '2000']],
 ];
 let failed = 0;
 for (const [file, args] of benches) {
