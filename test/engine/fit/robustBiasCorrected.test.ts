@@ -1,5 +1,5 @@
 /**
- * Robust bias-corrected results (METHODS.md §2; Calonico, Cattaneo & Titiunik
+ * Robust bias-corrected results (docs/methods.md §2.5; Calonico, Cattaneo & Titiunik
  * 2014) — estimate, se, interval and p-value of the jump, the take-up jump and
  * the complier effect — under hc0, hc1 and cluster, against R.
  * Source: test/fixtures/robust/make_robust.R (stats::lm + sandwich). R reaches

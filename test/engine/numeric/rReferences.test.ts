@@ -31,7 +31,7 @@ test.each(fx.silverman.map((c, i) => [i, c.x.length, c] as const))('Silverman, s
 test.each(fx.quantile.map((c, i) => [i, c.y.length, c.grid, c] as const))(
   'interval class %d (N = %d, G = %d): cut points vs R quantile(type = 1), bins vs findInterval',
   (_i, _n, G, c) => {
-    expect(c.distinct).toBeGreaterThan(G); // the quantile branch of METHODS §4
+    expect(c.distinct).toBeGreaterThan(G); // the quantile branch of docs/methods.md §4.3
     const cls = intervalClass(Float64Array.from(c.y), G);
     expect(cls.distinct).toBe(c.distinct);
     expect(cls.bins).toBe(c.bin_min.length);
