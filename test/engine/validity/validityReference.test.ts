@@ -37,11 +37,18 @@ interface Case {
   pvalue: number;
   critical_value: number;
   draw_margin: number;
+  pvalue_no_selection: number;
+  pvalue_Bn_infinite: number;
 }
 const fx = JSON.parse(readFileSync(join(__dirname, '../../fixtures/validity_reference/reference.json'), 'utf8')) as {
   stream: { seed: number; uint32: number[]; normal: number[] };
   cases: Case[];
 };
+
+test('the p-value checks pin κ_n and B_n: with the same draws, no selection or B_n = ∞ would change some p-values', () => {
+  expect(fx.cases.filter((c) => c.pvalue_no_selection !== c.pvalue).length).toBeGreaterThanOrEqual(4);
+  expect(fx.cases.filter((c) => c.pvalue_Bn_infinite !== c.pvalue).length).toBeGreaterThanOrEqual(3);
+});
 
 test('the engine random stream equals the reference re-implementation (xoshiro128**, splitmix32, Box–Muller)', () => {
   const a = new Random(fx.stream.seed);
