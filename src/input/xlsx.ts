@@ -3,6 +3,8 @@
  * worksheet unless `sheet` names one; the first row is the header. Formula
  * cells give their cached result; rich text gives its plain text; dates give
  * their serial-free ISO text (and so are rejected as numbers, by name).
+ * Merged cells: only the top-left cell of a merged range holds the value;
+ * the other cells of the range are blank, as Excel treats them.
  */
 import type ExcelJS from 'exceljs';
 import { CutlineError } from '../engine/errors';
@@ -45,6 +47,9 @@ export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string,
   ws.eachRow({ includeEmpty: true }, (row, rowNumber) => {
     const cells: Cell[] = new Array(width).fill(null);
     row.eachCell({ includeEmpty: false }, (cell, col) => {
+      // A merged range keeps its value in the top-left cell; exceljs repeats it in
+      // the hidden cells, which Excel itself treats as blank.
+      if (cell.isMerged && cell.master !== cell && cell.master.address !== cell.address) return;
       if (col <= width) cells[col - 1] = plain(cell.value);
     });
     rows[rowNumber - 1] = cells;
