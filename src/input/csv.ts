@@ -44,11 +44,16 @@ export function looksLikeUtf16(bytes: Uint8Array): boolean {
   if (m < 4) return false;
   let even = 0;
   let odd = 0;
+  let text = 0;
+  const printable = (b: number): boolean => b === 9 || b === 10 || b === 13 || b >= 32;
   for (let i = 0; i < m; i += 2) {
     if (bytes[i] === 0) even++;
     if (bytes[i + 1] === 0) odd++;
+    // The other byte of each pair: the text's characters (mostly printable when it is text).
+    if (printable(bytes[i]) || printable(bytes[i + 1])) text++;
   }
-  return Math.max(even, odd) >= 0.4 * (m / 2) && Math.min(even, odd) <= 0.05 * (m / 2);
+  const half = m / 2;
+  return Math.max(even, odd) >= 0.4 * half && Math.min(even, odd) <= 0.05 * half && text >= 0.9 * half;
 }
 
 /** Which of the two readers parses a text: Papa Parse when it holds a quote, else the byte scanner. */

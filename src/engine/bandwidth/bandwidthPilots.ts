@@ -52,8 +52,8 @@ function computePilots(score: ArrayLike<number>, cutoff: number): Pilots {
   const above = order.slice(c0, hi);
   if (below.length < 2 || above.length < 2) {
     throw new CutlineError(
-      `too few units near the cutoff for the pilot bandwidth ${h1.toPrecision(4)} ` +
-        `(${below.length} below, ${above.length} above; at least 2 each are needed)`,
+      `too few units near the cutoff to choose a bandwidth: within ${h1.toPrecision(4)} of it the score has ` +
+        `${below.length} below and ${above.length} above, and the rule needs at least 2 on each side; give a bandwidth, or check the score column and the cutoff`,
     );
   }
   return {
