@@ -217,7 +217,7 @@ describe('headers and CSV dialects', () => {
 
 describe('designs at the edges', () => {
   test('one row per side, and too few rows', () => {
-    expectRefused(run([write('tworows.csv', 'score,treated,y\n-1,0,1\n1,1,3\n'), ...opts()]), /too few units near the cutoff to choose a bandwidth: within [\d.]+ of it the score has 1 below and 1 above.*give a bandwidth/);
+    expectRefused(run([write('tworows.csv', 'score,treated,y\n-1,0,1\n1,1,3\n'), ...opts()]), /too few units near the cutoff to choose a bandwidth: within [\d.]+ of it the score has 1 below and 1 above \(1 and 1 distinct scores\).*give a bandwidth/);
     expectRefused(run([write('six.csv', 'score,treated,y\n-1,0,1\n-0.5,1,2\n-0.2,0,1.5\n0.1,1,3\n0.4,0,2\n0.9,1,4\n'), ...opts()]), /at least 3 are needed/);
   });
 
