@@ -14,6 +14,7 @@ import { choiceOption, numberOption, one, parseArgs, ParsedArgs, required } from
 import { toJson } from './json';
 import { readable } from './readable';
 import { readTable } from './readTable';
+import { withFlags } from './flagHints';
 
 const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
@@ -165,7 +166,7 @@ async function main(argv: string[]): Promise<number> {
     return 0;
   } catch (e) {
     if (e instanceof CutlineError) {
-      process.stderr.write(`cutline: ${e.message.replace(/\s*\n\s*/g, ' ')}\n`);
+      process.stderr.write(`cutline: ${withFlags(e.message).replace(/\s*\n\s*/g, ' ')}\n`);
       return 2;
     }
     process.stderr.write(`cutline: internal error: ${e instanceof Error ? e.message : String(e)}\n`);

@@ -100,7 +100,7 @@ function parseWithPapa(text: string, delim: string, source: string): Table {
   if (bad) throw new CutlineError(`${source}: unbalanced quotes near row ${(bad.row ?? 0) + 1}`);
   const header = (rows[0] ?? []).map((h) => trimBlank(h));
   const body = rows.slice(1);
-  body.forEach((r, i) => checkWidth(r.length, header.length, i + 2, source, blankLine(r)));
+  body.forEach((r, i) => checkWidth(r.length, header.length, i + 2, source, blankLine(r), delim));
   return {
     header,
     rowCount: body.length,
@@ -109,9 +109,14 @@ function parseWithPapa(text: string, delim: string, source: string): Table {
   };
 }
 
-function checkWidth(width: number, expected: number, row: number, source: string, blank: boolean): void {
+function checkWidth(width: number, expected: number, row: number, source: string, blank: boolean, delim: string): void {
   if (width !== expected && !blank) {
-    throw new CutlineError(`${source}, row ${row}: ${width} field${width === 1 ? '' : 's'} where the header has ${expected}`);
+    // Extra commas are often decimal commas of a file written for a comma-decimal locale.
+    const hint =
+      width > expected && delim === ','
+        ? '; if the file writes numbers with a decimal comma (3,5), save it with semicolons between fields, or with decimal points'
+        : '';
+    throw new CutlineError(`${source}, row ${row}: ${width} field${width === 1 ? '' : 's'} where the header has ${expected}${hint}`);
   }
 }
 
@@ -187,20 +192,22 @@ function scanPlain(text: Uint8Array, delim: string, source: string): Table {
     } else if (c + 1 !== w) {
       // A row of the wrong width is an error, unless it is blank (delimiters and blanks only) and
       // only blank rows follow it: blank rows at the end are ignored, as in parseWithPapa.
-      if (pending >= 0 || !delimitedBlank(text, i, j, d)) checkWidth(pending >= 0 ? pendingWidth : c + 1, w, (pending >= 0 ? pending : rows) + 2, source, false);
-      pending = rows;
-      pendingWidth = c + 1;
+      if (!delimitedBlank(text, i, j, d)) checkWidth(pending >= 0 ? pendingWidth : c + 1, w, (pending >= 0 ? pending : rows) + 2, source, false, delim);
+      if (pending < 0) {
+        pending = rows;
+        pendingWidth = c + 1;
+      }
       blankRow(offsets, base, w, i);
     } else {
       offsets[base + w] = j + 1;
-      if (pending >= 0 && !rowBlank(rows, base)) checkWidth(pendingWidth, w, pending + 2, source, false);
+      if (pending >= 0 && !rowBlank(rows, base)) checkWidth(pendingWidth, w, pending + 2, source, false, delim);
     }
     rows++;
     i = j + (text[j] === 13 && text[j + 1] === 10 ? 2 : 1);
   }
   // Blank rows at the end are ignored, as Papa Parse's rows are (parseWithPapa).
   while (rows > 0 && rowBlank(rows - 1, (rows - 1) * (w + 1))) rows--;
-  if (pending >= 0 && pending < rows) checkWidth(pendingWidth, w, pending + 2, source, false);
+  if (pending >= 0 && pending < rows) checkWidth(pendingWidth, w, pending + 2, source, false, delim);
   return {
     header,
     rowCount: rows,
