@@ -158,7 +158,7 @@ describe('3. errors name the column or option and a remedy', () => {
     const text = csv('score,treated,y', plain, '\n', data);
     const r = check(write('donut.csv', text), '--donut', '0.9');
     expect(r.err).not.toMatch(/pilot/);
-    refused(r, /the donut \(radius 0\.9\) leaves too few units near the cutoff to choose a bandwidth.*choose a smaller donut, or give a bandwidth/);
+    refused(r, /the donut \(radius 0\.9\) leaves too few units or distinct scores near the cutoff for the bandwidth rule \(it works without the donut\); choose a smaller donut \(--donut\), or give a bandwidth \(--bandwidth NUM\)/);
   });
 });
 
@@ -196,7 +196,7 @@ describe('5. designs that make no sense', () => {
   });
   test('a sensitivity multiple spreading the window over many times the range is refused', () => {
     refused(run(['check', good, '--score', 'score', '--treated', 'treated', '--outcome', 'y', '--cutoff', '0', '--draws', '99', '--sensitivity', '1,5000']),
-      /the sensitivity multiple 5000 makes the validity test's bandwidth [\d.e+]+, more than 10 times the range of the scores .*choose multiples up to/);
+      /the sensitivity multiple 5000 \(--sensitivity\) makes the validity test's bandwidth [\d.e+]+, more than 10 times the range of the scores .*choose multiples up to/);
   });
 });
 

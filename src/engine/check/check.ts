@@ -458,7 +458,7 @@ function blameDonut<T>(donut: number | undefined, f: () => T, withoutDonut: () =
       throw e;
     }
     throw new CutlineError(
-      `the donut (radius ${donut}) leaves too few units near the cutoff to choose a bandwidth (${e.message}); choose a smaller donut, or give a bandwidth`,
+      `the donut (radius ${donut}) leaves too few units or distinct scores near the cutoff for the bandwidth rule (it works without the donut); choose a smaller donut, or give a bandwidth`,
     );
   }
 }
