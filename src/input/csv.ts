@@ -6,7 +6,7 @@
  * the delimiter: Cutline scans such texts itself, on the bytes, recording
  * field offsets only (ASCII delimiters and digits never occur inside a UTF-8
  * multibyte character), because Papa Parse needs about 1.5 s for a million
- * rows here and the whole check has a 1 s budget. test/csv.test.ts checks the
+ * rows here and the whole check has a 1 s budget. test/input/csv.test.ts checks the
  * two paths agree on random texts.
  *
  * Line endings: LF, CR LF, or a lone CR (classic Mac OS files), in any mix.
@@ -73,7 +73,7 @@ export function parseCsv(input: string | Uint8Array, source = 'the CSV file', re
   if (bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf) bytes = bytes.subarray(3);
   let nonBlank = false;
   for (let i = 0; i < bytes.length && !nonBlank; i++) nonBlank = !(bytes[i] === 32 || (bytes[i] >= 9 && bytes[i] <= 13));
-  if (!nonBlank) throw new CutlineError(`${source} is empty`);
+  if (!nonBlank) throw new CutlineError(`${source} is empty (it holds no characters but blanks): give a file whose first line names the columns and whose next lines hold the data`);
   // The header line ends at the first line break: LF, CR LF, or a lone CR (classic Mac files).
   let firstEol = 0;
   while (firstEol < bytes.length && bytes[firstEol] !== 10 && bytes[firstEol] !== 13) firstEol++;
@@ -81,8 +81,8 @@ export function parseCsv(input: string | Uint8Array, source = 'the CSV file', re
   const delim = detectDelimiter(headerLine);
   const use = reader ?? (bytes.indexOf(34) >= 0 ? 'quoted' : 'plain');
   const table = use === 'quoted' ? parseWithPapa(decoder.decode(bytes), delim, source) : scanPlain(bytes, delim, source);
-  if (table.header.every((h) => h === '')) throw new CutlineError(`${source} has no header line`);
-  if (table.rowCount === 0) throw new CutlineError(`${source} has a header but no data rows`);
+  if (table.header.every((h) => h === '')) throw new CutlineError(`${source} has no header line: its first line must name the columns (score, treated, outcomes …)`);
+  if (table.rowCount === 0) throw new CutlineError(`${source} has a header but no data rows: add the data below the header line`);
   return table;
 }
 
@@ -97,7 +97,7 @@ function parseWithPapa(text: string, delim: string, source: string): Table {
   const rows = res.data;
   while (rows.length > 1 && rows[rows.length - 1].every((c) => trimBlank(c) === '')) rows.pop();
   const bad = res.errors.find((e) => e.type === 'Quotes');
-  if (bad) throw new CutlineError(`${source}: unbalanced quotes near row ${(bad.row ?? 0) + 1}`);
+  if (bad) throw new CutlineError(`${source}: unbalanced quotes near row ${(bad.row ?? 0) + 1}: a field that opens with a quote must close with one (write a quote inside a field as two quotes)`);
   const header = (rows[0] ?? []).map((h) => trimBlank(h));
   const body = rows.slice(1);
   body.forEach((r, i) => checkWidth(r.length, header.length, i + 2, source, blankLine(r), delim));

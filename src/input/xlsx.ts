@@ -33,7 +33,7 @@ export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string,
   try {
     await wb.xlsx.load(bytes as ArrayBuffer);
   } catch {
-    throw new CutlineError(`${source} cannot be read as an .xlsx workbook`);
+    throw new CutlineError(`${source} cannot be read as an .xlsx workbook: open it in a spreadsheet and save it again as .xlsx (or as CSV UTF-8)`);
   }
   const ws = sheet === undefined ? wb.worksheets[0] : wb.getWorksheet(sheet);
   if (!ws) {
@@ -61,6 +61,6 @@ export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string,
     throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} is empty${others}`);
   }
   const table = tableFromRows(rows);
-  if (table.rowCount === 0) throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} has a header but no data rows`);
+  if (table.rowCount === 0) throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} has a header but no data rows: the data must start on row 2, below the column names`);
   return table;
 }
