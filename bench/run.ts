@@ -10,10 +10,14 @@ const quick = process.argv.includes('--quick');
 const runner = path.join(process.cwd(), 'bin', 'run-ts.cjs');
 const benches: Array<[string, string[]]> = [
   ['bench/checkBench.ts', []],
+  ['bench/tiesBench.ts', []],
   ['bench/validityBench.ts', []],
   ['bench/densityBench.ts', []],
-  ['bench/validityMonteCarlo.ts', [quick ? '200' : '1000']],
+  ['bench/validityMonteCarlo.ts', quick ? ['--quick'] : []],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],
+  ['bench/validitySizeBinding.ts', [quick ? '200' : '2000']],
+  ['bench/bandwidthConvergence.ts', [quick ? '50' : '400']],
+  ['bench/densitySpread.ts', [quick ? '200' : '2000']],
 ];
 let failed = 0;
 for (const [file, args] of benches) {
