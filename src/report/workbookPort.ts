@@ -76,8 +76,12 @@ export type Progress = (done: number, total: number, what: string) => void;
 export class CancelledError extends Error {
   constructor() {
     super('cancelled');
+    this.name = 'CancelledError';
   }
 }
+
+/** A cancel, whichever copy of the class threw it (a test's workbook is bundled apart from the pane). */
+export const isCancel = (e: unknown): boolean => e instanceof Error && e.name === 'CancelledError';
 
 export interface WorkbookPort {
   /** The data block, or an error (PortError) saying what is missing. */

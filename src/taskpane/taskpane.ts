@@ -10,7 +10,7 @@
  * `window.cutlineWorkbook` before it loads.
  */
 import { ExcelWorkbook } from '../report/excelWorkbook';
-import { CancelledError, DataBlock, DataSource, WorkbookPort } from '../report/workbookPort';
+import { DataBlock, DataSource, isCancel, WorkbookPort } from '../report/workbookPort';
 import { detectEligible } from './engine';
 import { checkForm, DEFAULT_FORM, Field, FieldErrors, nameList, PaneForm, ReadyCheck } from './paneInputs';
 import { runGuidedCheck } from './runGuidedCheck';
@@ -191,7 +191,7 @@ async function run(): Promise<void> {
     $('verdicts').hidden = false;
     $('pane-status').textContent = `The summary is on the sheet “${done.sheet}”.`;
   } catch (e) {
-    if (e instanceof CancelledError) {
+    if (isCancel(e)) {
       setProgress(0, 'Cancelled: nothing was written.');
     } else {
       setProgress(0, `The check stopped: ${e instanceof Error ? e.message : String(e)}`);
