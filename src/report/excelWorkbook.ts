@@ -78,7 +78,7 @@ export class ExcelWorkbook implements WorkbookPort {
   async tableNames(): Promise<string[]> {
     return Excel.run(async (context) => {
       const t = context.workbook.tables;
-      t.load('items/name');
+      t.load('items');
       await context.sync();
       return t.items.map((x) => x.name);
     });
@@ -87,7 +87,7 @@ export class ExcelWorkbook implements WorkbookPort {
   async sheetNames(): Promise<string[]> {
     return Excel.run(async (context) => {
       const s = context.workbook.worksheets;
-      s.load('items/name');
+      s.load('items');
       await context.sync();
       return s.items.map((x) => x.name);
     });
@@ -120,7 +120,7 @@ export class ExcelWorkbook implements WorkbookPort {
       progress(chunks.length + 1, total, 'Naming the settings cells…');
       for (const ch of plan.charts) {
         const first = ch.series[0];
-        const chart = ws.charts.add(CHART_TYPE[ch.kind] as Excel.ChartType, ws.getRange(first.y), Excel.ChartSeriesBy.columns);
+        const chart = ws.charts.add(CHART_TYPE[ch.kind] as Excel.ChartType, ws.getRange(first.y), 'Columns');
         chart.title.text = ch.title;
         chart.axes.categoryAxis.title.text = ch.xTitle;
         chart.axes.valueAxis.title.text = ch.yTitle;
@@ -132,7 +132,7 @@ export class ExcelWorkbook implements WorkbookPort {
           series.name = s.name;
           series.setValues(ws.getRange(s.y));
           series.setXAxisValues(ws.getRange(s.x));
-          if (s.fit) series.trendlines.add(Excel.ChartTrendlineType.linear);
+          if (s.fit) series.trendlines.add('Linear');
         });
       }
       ws.activate();

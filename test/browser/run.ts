@@ -343,6 +343,7 @@ async function main(): Promise<void> {
       const view = await browser.newPage({ viewport: { width: 1400, height: 900 } });
       await view.setContent(html);
       await view.screenshot({ path: path.join(out, 'summary-sheet.png'), fullPage: true });
+      await view.screenshot({ path: path.join(out, 'summary-sheet-top.png'), clip: { x: 0, y: 0, width: 1400, height: 1100 } });
       await view.close();
       const bad = await compareSheet(page, sheet, at60.plan.expected);
       assert.deepEqual(bad.slice(0, 20), [], `${bad.length} of ${at60.plan.expected.length} cells differ`);

@@ -91,6 +91,8 @@ export function sheetHtml(wb: InPageWorkbook, sheet: string): string {
       tds.push(`<td class="${cls}">${show(v, plan?.format)}</td>`);
     }
     const chartHere = charts.filter((ch) => formulaRefs(ch.anchor, sheet)[0].top === r + 1);
+    // Empty rows (those the charts stand on in Excel) are left out; the row numbers show where.
+    if (chartHere.length === 0 && tds.every((td) => td.endsWith('"></td>'))) continue;
     rows.push(`<tr><th>${r + 1}</th>${tds.join('')}</tr>${chartHere.length ? `<tr><td></td><td colspan="${width}">${chartHere.map((ch) => chartSvg(wb, sheet, ch)).join('')}</td></tr>` : ''}`);
   }
   return `<!doctype html><html><head><meta charset="utf-8"><title>${esc(sheet)}</title><style>
