@@ -111,6 +111,8 @@ export class ExcelWorkbook implements WorkbookPort {
       for (let k = 0; k < chunks.length; k++) {
         if (cancelled()) await abandon();
         for (const c of chunks[k]) writeCell(ws, c);
+        // One round trip per chunk, on purpose: the progress bar moves and Cancel is heard between chunks.
+        // eslint-disable-next-line office-addins/no-context-sync-in-loop
         await context.sync();
         progress(k + 1, total, `Writing the sheet (${Math.min((k + 1) * CHUNK, plan.cells.length)} of ${plan.cells.length} cells)…`);
       }
@@ -160,8 +162,10 @@ export class ExcelWorkbook implements WorkbookPort {
       const busy = await Excel.run(async (context) => {
         const r = context.workbook.worksheets.getItem(sheet).getUsedRange(true);
         r.load('values');
+        // One look at the sheet per poll, on purpose (each poll is its own Excel.run).
+        // eslint-disable-next-line office-addins/no-context-sync-in-loop
         await context.sync();
-        return (r.values as unknown[][]).flat().filter((v) => v === '#BUSY!').length;
+        return countBusy(r.values);
       });
       busyAtStart = Math.max(busyAtStart, busy);
       progress?.(busyAtStart - busy, Math.max(1, busyAtStart), `Recalculating (${busy} formulas still running)…`);
@@ -171,38 +175,44 @@ export class ExcelWorkbook implements WorkbookPort {
   }
 }
 
+/** Cells showing #BUSY! (an asynchronous function still running). */
+export function countBusy(values: unknown[][]): number {
+  let n = 0;
+  for (const row of values) for (const v of row) if (v === '#BUSY!') n++;
+  return n;
+}
+
 function writeCell(ws: Excel.Worksheet, c: PlanCell): void {
   const r = ws.getRange(c.address);
   if (c.formula !== undefined) r.formulas = [[c.formula]];
   else if (c.value !== undefined) r.values = [[c.value]];
   if (c.format && c.format !== 'text') r.numberFormat = [[NUMBER_FORMAT[c.format]]];
-  const font = r.format.font;
   switch (c.style) {
     case 'title':
-      font.bold = true;
-      font.size = 14;
+      r.format.font.bold = true;
+      r.format.font.size = 14;
       break;
     case 'heading':
-      font.bold = true;
-      font.size = 12;
+      r.format.font.bold = true;
+      r.format.font.size = 12;
       break;
     case 'header':
-      font.bold = true;
+      r.format.font.bold = true;
       r.format.borders.getItem('EdgeBottom').style = 'Continuous';
       break;
     case 'note':
-      font.italic = true;
-      font.color = '#555555';
+      r.format.font.italic = true;
+      r.format.font.color = '#555555';
       break;
     case 'setting':
       r.format.fill.color = '#FFF2CC';
-      font.bold = true;
+      r.format.font.bold = true;
       break;
     case 'verdict':
-      font.bold = true;
+      r.format.font.bold = true;
       break;
     default:
       break;
   }
-  if (c.format !== undefined && c.formula === undefined && c.format !== 'text' && typeof c.value === 'number' && c.style === undefined) font.color = '#808080';
+  if (c.format !== undefined && c.formula === undefined && c.format !== 'text' && typeof c.value === 'number' && c.style === undefined) r.format.font.color = '#808080';
 }

@@ -55,6 +55,10 @@ export const DEFAULT_FORM: PaneForm = {
 
 export type FieldErrors = Partial<Record<Field, string>>;
 
+/** Said beside the cluster field when one is named. */
+export const CLUSTER_NOTE =
+  'The summary sheet’s formulas treat units as independent (the worksheet functions take no cluster column), so the cluster is not used here; cutline check --cluster gives clustered standard errors.';
+
 export interface ReadyCheck {
   input: CheckInput;
   options: CheckOptions;
@@ -139,10 +143,10 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
   if (outcomeNames.length === 0) errors.outcomes = 'Type the header of at least one outcome column.';
   const outcomes = many('outcomes', outcomeNames, 'outcome');
   const covariates = many('covariates', nameList(form.covariates), 'covariate');
-  let cluster: ReturnType<typeof labelColumn> | undefined;
   if (form.cluster.trim() !== '') {
     try {
-      cluster = labelColumn(table, form.cluster.trim(), 'cluster');
+      // Checked for its header only (see CLUSTER_NOTE).
+      labelColumn(table, form.cluster.trim(), 'cluster');
     } catch (e) {
       errors.cluster = plain(e);
     }
@@ -185,7 +189,8 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
     treated,
     outcomes,
     ...(form.balance && covariates.length > 0 ? { covariates } : {}),
-    ...(cluster ? { cluster } : {}),
+    // Not the cluster: the worksheet functions take no cluster column, and the sheet's formulas must give
+    // the pane's numbers; the cluster is checked (its column must exist) and the pane says so beside it.
   };
   const options: CheckOptions = {
     cutoff,

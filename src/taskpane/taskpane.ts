@@ -12,7 +12,7 @@
 import { ExcelWorkbook } from '../report/excelWorkbook';
 import { DataBlock, DataSource, isCancel, WorkbookPort } from '../report/workbookPort';
 import { detectEligible } from './engine';
-import { checkForm, DEFAULT_FORM, Field, FieldErrors, nameList, PaneForm, ReadyCheck } from './paneInputs';
+import { checkForm, CLUSTER_NOTE, DEFAULT_FORM, Field, FieldErrors, nameList, PaneForm, ReadyCheck } from './paneInputs';
 import { runGuidedCheck } from './runGuidedCheck';
 
 declare global {
@@ -108,6 +108,7 @@ function refresh(): FieldErrors {
   const wrong = (Object.keys(errors) as Field[]).map((x) => FIELD_LABEL[x]);
   $('run-blocked').textContent = wrong.length ? `Run needs: ${wrong.join(', ')} (see the message beside each field).` : '';
   $<HTMLButtonElement>('run').disabled = !ready || running || !port;
+  $('note-cluster').textContent = f.cluster.trim() !== '' && !errors.cluster ? CLUSTER_NOTE : '';
   summarizeChoices(f);
   detected(f, ready);
   return errors;
