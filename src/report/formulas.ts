@@ -38,6 +38,11 @@ export const DETAIL_LABELS: Record<string, string> = {
   pvalue: 'p-value (robust)',
   statistic: 'statistic (observed)',
   critical_value: '5% critical value (observed)',
+  pvalue_observed: 'p-value, observed outcomes',
+  pvalue_trend_adjusted: 'p-value, trend-adjusted outcomes',
+  intervals: 'intervals',
+  draws: 'draws',
+  bandwidth: 'bandwidth',
 };
 
 /** A field of a function's detail table, by name (e.g. 'se', 'pvalue'); undefined when the functions do not give it. */

@@ -21,7 +21,7 @@
  *   const plan = planSheet(model, { source: 'Data!A1:H6001' });
  *   plan.cells.find((c) => c.address === 'B6'); // { value: 60, style: 'setting', … }
  */
-import { cellAddress, columnLetters } from './formulas';
+import { cellAddress, columnLetters, detailField } from './formulas';
 import { PlanCell, PlanChart, SheetPlan } from './workbookPort';
 import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
 
@@ -215,6 +215,18 @@ function planTable(
       put({ address: a1(row, v), formula: `=IF(${a1(row, p)}<=0.05,"contradicted","not contradicted")`, format: 'text', role: 'result' });
     });
   }
+  // Columns the validity test's detail table gives, read from the formula of the row's p-value.
+  if ((t.id === 'validity' || t.id === 'sensitivity') && p >= 0) {
+    t.rows.forEach((r, j) => {
+      const f = r[p]?.formula;
+      if (f === undefined || !f.startsWith('CUTLINE.VALIDITY(')) return;
+      for (const [column, key] of Object.entries(VALIDITY_DETAIL)) {
+        const i = t.columns.indexOf(column);
+        const formula = i >= 0 && typeof r[i]?.value === 'number' && r[i].formula === undefined ? detailField(f, key) : undefined;
+        if (formula) put({ address: a1(t.row + 1 + j, i), formula: `=${formula}`, format: r[i].format, role: 'result' });
+      }
+    });
+  }
   // The sensitivity table's bandwidths: multiples of the test bandwidth's cell.
   const m = t.columns.indexOf('multiple of the test bandwidth');
   const b = t.columns.indexOf('bandwidth');
@@ -227,6 +239,15 @@ function planTable(
   }
   if (t.note) text(t.row + t.rows.length + 1, 0, t.note, 'note');
 }
+
+/** Columns of the validity tables and the names of the fields of VALIDITY's detail table that fill them. */
+const VALIDITY_DETAIL: Record<string, string> = {
+  'p observed': 'pvalue_observed',
+  'p trend removed': 'pvalue_trend_adjusted',
+  intervals: 'intervals',
+  draws: 'draws',
+  bandwidth: 'bandwidth',
+};
 
 /** The area a spilling formula at row j, column i of a table fills: to the table's end and its last column (or the next formula column). */
 function spillArea(t: SummaryTable, j: number, i: number): { rows: number; cols: number } {
