@@ -144,6 +144,13 @@ export class ExcelWorkbook implements WorkbookPort {
     this.lastSheet = plan.sheet;
   }
 
+  async deleteSheet(name: string): Promise<void> {
+    await Excel.run(async (context) => {
+      context.workbook.worksheets.getItem(name).delete();
+      await context.sync();
+    });
+  }
+
   async readValues(sheet: string, address: string): Promise<PortCell[][]> {
     return Excel.run(async (context) => {
       const r = context.workbook.worksheets.getItem(sheet).getRange(address);
@@ -154,11 +161,12 @@ export class ExcelWorkbook implements WorkbookPort {
   }
 
   /** Polls the last written sheet until no cell shows #BUSY! (Excel's mark of an asynchronous function still running), two minutes at most. */
-  async settle(progress?: Progress): Promise<void> {
+  async settle(progress?: Progress, cancelled?: () => boolean): Promise<void> {
     if (!this.lastSheet) return;
     const sheet = this.lastSheet;
     let busyAtStart = 0;
     for (let attempt = 0; attempt < 240; attempt++) {
+      if (cancelled?.()) return;
       const busy = await Excel.run(async (context) => {
         const r = context.workbook.worksheets.getItem(sheet).getUsedRange(true);
         r.load('values');

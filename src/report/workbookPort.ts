@@ -97,8 +97,10 @@ export interface WorkbookPort {
   writeSheet(plan: SheetPlan, progress: Progress, cancelled: () => boolean): Promise<void>;
   /** Values of a range of a sheet (after recalculation). */
   readValues(sheet: string, address: string): Promise<PortCell[][]>;
-  /** Waits until the workbook has finished calculating (asynchronous functions included). */
-  settle(progress?: Progress): Promise<void>;
+  /** Waits until the workbook has finished calculating (asynchronous functions included), or until `cancelled()`. */
+  settle(progress?: Progress, cancelled?: () => boolean): Promise<void>;
+  /** Removes a sheet this port wrote (a cancel after the writing began). */
+  deleteSheet(name: string): Promise<void>;
 }
 
 /** A problem of the workbook the user can fix (no selection, no header, …), for the message beside the data field. */

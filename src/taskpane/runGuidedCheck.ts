@@ -66,7 +66,12 @@ export async function runGuidedCheck(
     cancelled,
   );
   progress(SHARE.check + SHARE.write, 'Recalculating the sheet’s formulas…');
-  await port.settle((done, total, what) => progress(SHARE.check + SHARE.write + (SHARE.settle * done) / Math.max(1, total), what));
+  await port.settle((done, total, what) => progress(SHARE.check + SHARE.write + (SHARE.settle * done) / Math.max(1, total), what), cancelled);
+  if (cancelled()) {
+    // Cancelled while the sheet recalculated: take the new sheet away, so that nothing was written.
+    await port.deleteSheet(plan.sheet);
+    throw new CancelledError();
+  }
   progress(1, `Written to the sheet “${plan.sheet}”.`);
   return { sheet: plan.sheet, verdicts: model.verdicts, result, plan };
 }

@@ -95,12 +95,14 @@ export function pendingCount(): number {
 }
 
 /** Waits for every pending call, then `recalc()`; repeats until none is pending. */
-export async function settleAll(recalc: () => void, progress?: (done: number, total: number) => void): Promise<void> {
+export async function settleAll(recalc: () => void, progress?: (done: number, total: number) => void, cancelled?: () => boolean): Promise<void> {
   let seen = 0;
   while (pending.size > 0) {
+    if (cancelled?.()) return;
     const now = [...pending.values()];
     seen = Math.max(seen, now.length);
-    await Promise.allSettled(now);
+    // One call at a time, so that a cancel is heard between them.
+    await Promise.race(now);
     recalc();
     progress?.(seen - pending.size, Math.max(1, seen));
   }

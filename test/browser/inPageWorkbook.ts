@@ -110,7 +110,7 @@ export class InPageWorkbook implements WorkbookPort {
       for (let k = 0; k * CHUNK < plan.cells.length; k++) {
         if (cancelled()) {
           this.hf.resumeEvaluation();
-          this.hf.removeSheet(id);
+          await this.deleteSheet(plan.sheet);
           throw new CancelledError();
         }
         for (const c of plan.cells.slice(k * CHUNK, (k + 1) * CHUNK)) {
@@ -145,11 +145,19 @@ export class InPageWorkbook implements WorkbookPort {
     await this.settle();
   }
 
-  async settle(progress?: Progress): Promise<void> {
+  async deleteSheet(name: string): Promise<void> {
+    const id = this.id(name);
+    for (const k of [...this.opts.hints.keys()]) if (k.startsWith(`${id}:`)) this.opts.hints.delete(k);
+    this.hf.removeSheet(id);
+    this.writes.splice(this.writes.indexOf(name), 1);
+  }
+
+  async settle(progress?: Progress, cancelled?: () => boolean): Promise<void> {
     await settleAll(
       // A change anywhere recalculates the (volatile) CUTLINE formulas, which now find their settled results.
       () => this.hf.setCellContents({ sheet: this.id(this.opts.active), row: 0, col: 200 }, [[null]]),
       (done, total) => progress?.(done, total, `Recalculating (${total - done} formulas still running)…`),
+      cancelled,
     );
   }
 }

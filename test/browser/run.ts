@@ -304,8 +304,7 @@ async function main(): Promise<void> {
     await step('Cancel right after Run writes nothing', async () => {
       await tabTo(page, 'run');
       await page.keyboard.press('Enter');
-      await page.keyboard.press('Tab'); // to Cancel
-      assert.equal(await page.evaluate(() => document.activeElement?.id), 'cancel');
+      await tabTo(page, 'cancel');
       await page.keyboard.press('Enter');
       await page
         .waitForFunction(() => /Cancelled: nothing was written/.test(document.getElementById('progress-text')?.textContent ?? ''), undefined, { timeout: 60000 })
@@ -344,6 +343,9 @@ async function main(): Promise<void> {
       await view.setContent(html);
       await view.screenshot({ path: path.join(out, 'summary-sheet.png'), fullPage: true });
       await view.screenshot({ path: path.join(out, 'summary-sheet-top.png'), clip: { x: 0, y: 0, width: 1400, height: 1100 } });
+      const first = await view.$('svg.chart');
+      const box = first ? await first.boundingBox() : null;
+      if (box) await view.screenshot({ path: path.join(out, 'summary-sheet-charts.png'), fullPage: true, clip: { x: 0, y: Math.max(0, box.y - 40), width: 1400, height: 1300 } });
       await view.close();
       const bad = await compareSheet(page, sheet, at60.plan.expected);
       assert.deepEqual(bad.slice(0, 20), [], `${bad.length} of ${at60.plan.expected.length} cells differ`);

@@ -87,17 +87,23 @@ export function sheetHtml(wb: InPageWorkbook, sheet: string): string {
       const plan = fmt.get(addr);
       const v = wb.hf.getCellValue({ sheet: id, row: r, col: c });
       const formula = wb.hf.doesCellHaveFormula({ sheet: id, row: r, col: c }) || wb.hf.isCellPartOfArray({ sheet: id, row: r, col: c });
-      const cls = [plan?.style ?? '', formula ? 'f' : '', typeof v === 'number' ? 'num' : ''].join(' ');
-      tds.push(`<td class="${cls}">${show(v, plan?.format)}</td>`);
+      // Text runs over the empty cells to its right, as on a worksheet.
+      let span = 1;
+      if (typeof v === 'string' && !formula) {
+        while (c + span < width && wb.hf.isCellEmpty({ sheet: id, row: r, col: c + span })) span++;
+      }
+      const cls = [plan?.style ?? '', formula ? 'f' : '', typeof v === 'number' ? 'num' : '', span > 1 ? 'wide' : ''].join(' ');
+      tds.push(`<td class="${cls}"${span > 1 ? ` colspan="${span}"` : ''}>${show(v, plan?.format)}</td>`);
+      c += span - 1;
     }
     const chartHere = charts.filter((ch) => formulaRefs(ch.anchor, sheet)[0].top === r + 1);
     // Empty rows (those the charts stand on in Excel) are left out; the row numbers show where.
-    if (chartHere.length === 0 && tds.every((td) => td.endsWith('"></td>'))) continue;
+    if (chartHere.length === 0 && tds.every((td) => td.endsWith('></td>'))) continue;
     rows.push(`<tr><th>${r + 1}</th>${tds.join('')}</tr>${chartHere.length ? `<tr><td></td><td colspan="${width}">${chartHere.map((ch) => chartSvg(wb, sheet, ch)).join('')}</td></tr>` : ''}`);
   }
   return `<!doctype html><html><head><meta charset="utf-8"><title>${esc(sheet)}</title><style>
   body{font:12px Segoe UI,Arial,sans-serif;margin:8px} table{border-collapse:collapse} td,th{border:1px solid #e1e1e1;padding:1px 4px;white-space:nowrap;max-width:330px;overflow:hidden;text-overflow:ellipsis}
-  th{background:#f3f2f1;color:#666;font-weight:normal} .num{text-align:right} .f{background:#eef4fb} .title{font-size:16px;font-weight:bold}
+  th{background:#f3f2f1;color:#666;font-weight:normal} .num{text-align:right} .wide{max-width:none} .f{background:#eef4fb} .title{font-size:16px;font-weight:bold}
   .heading{font-weight:bold;font-size:13px} .header{font-weight:bold;border-bottom:2px solid #999} .note{font-style:italic;color:#555}
   .setting{background:#fff2cc;font-weight:bold} .verdict{font-weight:bold} .err{color:#a4262c} .chart{margin:4px 8px 4px 0;vertical-align:top}
   </style></head><body><h3>Sheet “${esc(sheet)}” (formula cells shaded blue, settings yellow)</h3><table>${rows.join('')}</table></body></html>`;
