@@ -4,9 +4,7 @@
  * Rademacher bootstrap for comparison; peak RSS at the end.
  * Run: node bin/run-ts.cjs bench/validityBench.ts
  */
-import { Random } from '../src/engine/numeric/random';
-import { bootstrapMaxima, selection } from '../src/engine/validity/validityBootstrap';
-import { resolveValidityOptions, validityMomentSets, validityTest } from '../src/engine/validity/validityTest';
+import { Random, bootstrapMaxima, resolveValidityOptions, selection, validityMomentSets, validityTest } from '../src/engine';
 
 function data(n: number, seed: number) {
   const rng = new Random(seed);

@@ -16,8 +16,7 @@
  * draws (seed = replication number), 1000 replications per cell (about 2 minutes on one core).
  * Run: node bin/run-ts.cjs bench/validityMonteCarlo.ts [reps]
  */
-import { Random } from '../src/engine/numeric/random';
-import { validityTest } from '../src/engine/validity/validityTest';
+import { Random, validityTest } from '../src/engine';
 
 type Shares = [number, number, number, number]; // a, n, c, f
 interface Design {

@@ -2,7 +2,7 @@
  * The `--json` document of DESIGN.md: the engine's result with the keys of
  * the contract (later checks add their keys when they exist).
  */
-import { CheckResult } from '../engine/check/check';
+import { CheckResult } from '../engine';
 
 export function toJson(r: CheckResult): Record<string, unknown> {
   return {

@@ -2,7 +2,7 @@
  * The readable (default) output of `cutline check`: Cutline's own layout, a
  * block per question an evaluator asks, with the cautions of METHODS.md.
  */
-import { CheckResult, EstimateSummary, OutcomeResult } from '../engine/check/check';
+import { CheckResult, EstimateSummary, OutcomeResult } from '../engine';
 import { interval, num, padLeft, padRight, pval, wrap } from './format';
 
 const COLS = [28, 12, 11, 26, 26, 9];

@@ -15,7 +15,7 @@
  * blank lines at the end are ignored.
  */
 import Papa from 'papaparse';
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 import { decimalOrNaN, fastNumber, isBlank } from './fastNumber';
 import { Table } from './table';
 

@@ -5,7 +5,7 @@
  * their serial-free ISO text (and so are rejected as numbers, by name).
  */
 import type ExcelJS from 'exceljs';
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 import { Cell, Table, tableFromRows } from './table';
 
 function plain(v: ExcelJS.CellValue): Cell {

@@ -21,11 +21,11 @@
  */
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, olsCoefficients, pilotCovariance, pilotVariance, Pilots, pilotWindow, thirdDerivative } from './bandwidthPilots';
-import { boundaryWindow } from '../fit/boundaryWindow';
+import { boundaryWindow } from '../fit';
 import { widenForTies } from './bandwidthTies';
 import { CutlineError } from '../errors';
-import { KernelName } from '../fit/kernels';
-import { smoothJump } from '../fit/smoothJump';
+import { KernelName } from '../fit';
+import { smoothJump } from '../fit';
 
 export interface IkSide {
   sigma2: number;

@@ -5,9 +5,9 @@
  * an outcome value each). Cutline's choice: a grid that follows the data, so
  * a decreasing stretch of an implied CDF is seen where the units are.
  */
-import { boundaryWindow } from '../fit/boundaryWindow';
-import { KernelName } from '../fit/kernels';
-import { gathered } from '../fit/residuals';
+import { boundaryWindow } from '../fit';
+import { KernelName } from '../fit';
+import { gathered } from '../fit';
 
 export const COMPLIER_GRID_POINTS = 25;
 

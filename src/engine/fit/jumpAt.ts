@@ -9,7 +9,7 @@
  *
  * @example
  *   const w = boundaryWindow(score, 60, 8, 'triangular');
- *   jumpAt(w, bill, { variance: 'nn' }).estimate
+ *   jumpAt(w, bill, { variance: 'neighbours' }).estimate
  */
 import { Window } from './boundaryWindow';
 import { Estimate, makeEstimate } from './estimate';

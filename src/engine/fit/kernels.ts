@@ -25,7 +25,7 @@ export function kernelWeight(kernel: KernelName, u: number): number {
     case 'uniform':
       return 0.5;
     default:
-      throw new CutlineError(`unknown kernel "${String(kernel)}"`);
+      throw new CutlineError(`unknown kernel "${String(kernel)}"`, { code: 'option', argument: 'kernel' });
   }
 }
 
@@ -46,6 +46,6 @@ export function kernelMoment(kernel: KernelName, j: number, squared = false): nu
       return 0.5625 * (1 / (j + 1) - 2 / (j + 3) + 1 / (j + 5));
     }
     default:
-      throw new CutlineError(`unknown kernel "${String(kernel)}"`);
+      throw new CutlineError(`unknown kernel "${String(kernel)}"`, { code: 'option', argument: 'kernel' });
   }
 }

@@ -7,8 +7,8 @@
  *
  * @example fitLine(score, bill, 60, 8, 'triangular').above.intercept
  */
-import { applyWeights, sideFit } from '../fit/boundaryWindow';
-import { KernelName } from '../fit/kernels';
+import { applyWeights, sideFit } from '../fit';
+import { KernelName } from '../fit';
 
 export interface FitLineSide {
   intercept: number;

@@ -1,0 +1,216 @@
+/**
+ * The steps a whole check is composed of, each exported so that an entry point
+ * for one quantity (a worksheet function) computes it exactly as `runCheck`
+ * does: the eligible side, the estimates' bandwidth, the validity test's
+ * bandwidth, the by-bandwidth verdict, the complier warnings and the donut.
+ * The choices behind them are in docs/methods.md.
+ */
+import { BandwidthChoice, BandwidthRule, chooseBandwidth } from '../bandwidth';
+import { bandwidthMse } from '../bandwidth';
+import { widenForTies } from '../bandwidth';
+import { CutlineError } from '../errors';
+import { applyWeights, boundaryWindow, sortedOrder, Window } from '../fit';
+import { KernelName } from '../fit';
+import { formatNumber } from '../numeric';
+import { MultiplierName } from '../validity';
+import { validityByBandwidth, ValidityAtBandwidth, ValidityResult, verdictWarnings } from '../validity';
+
+export type Eligible = 'above' | 'below';
+
+/** The multiples of the test bandwidth at which the verdict is shown by default. */
+export const DEFAULT_SENSITIVITY = [0.5, 0.75, 1, 1.5, 2];
+
+export const FALLING_TAKEUP_WARNING =
+  'take-up falls at the cutoff: eligibility is taken to be below the cutoff, and every jump is reported as below minus above';
+
+/**
+ * The eligible side: above unless the take-up jump (above − below, local
+ * linear at bandwidth h) is negative, then below with a warning. A side given
+ * by the caller wins. Returns the window used, for reuse by the estimates.
+ *
+ * @example eligibleSide(score, treated, 60, 12, 'triangular').sign // 1
+ */
+export function eligibleSide(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  cutoff: number,
+  h: number,
+  kernel: KernelName,
+  given?: Eligible,
+): { sign: 1 | -1; eligible: Eligible; window: Window; warnings: string[] } {
+  const window = boundaryWindow(score, cutoff, h, kernel);
+  if (given !== undefined) {
+    if (given !== 'above' && given !== 'below') {
+      throw new CutlineError(`the eligible side must be "above" or "below", got ${JSON.stringify(given)}`, { code: 'option', argument: 'eligible' });
+    }
+    return { sign: given === 'above' ? 1 : -1, eligible: given, window, warnings: [] };
+  }
+  const raw =
+    applyWeights(window.above.coef1[0], window.above.index, treated) - applyWeights(window.below.coef1[0], window.below.index, treated);
+  const sign: 1 | -1 = raw < 0 ? -1 : 1;
+  return { sign, eligible: sign > 0 ? 'above' : 'below', window, warnings: sign < 0 ? [FALLING_TAKEUP_WARNING] : [] };
+}
+
+/**
+ * The one bandwidth of all estimates: the rule applied to the complier effect
+ * of `outcome` (the first outcome of a check), or the typed bandwidth.
+ *
+ * @example estimatesBandwidth(score, treated, bill, 60, { kernel: 'triangular' }).value // 11.99 on the demo
+ */
+export function estimatesBandwidth(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  outcome: ArrayLike<number>,
+  cutoff: number,
+  opts: { rule?: BandwidthRule; kernel: KernelName; typed?: number },
+): BandwidthChoice {
+  return chooseBandwidth(score, outcome, cutoff, { rule: opts.rule, kernel: opts.kernel, typed: opts.typed, treated });
+}
+
+/**
+ * The validity test's bandwidth: the typed one, else the mse bandwidth of the
+ * take-up jump times n^(−1/20). When take-up has no sampling variation near the
+ * cutoff (a sharp design) that rule is undefined; the estimates' bandwidth `h`
+ * times n^(−1/20) is used and said. A value that leaves fewer than 2 distinct
+ * scores on a side is widened (bandwidthTies.ts).
+ *
+ * @example testBandwidth(score, treated, 60, 'triangular', 11.99).value // 9.801 on the demo
+ */
+export function testBandwidth(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  cutoff: number,
+  kernel: KernelName,
+  h: number,
+  typed?: number,
+): { value: number; rule: 'undersmoothed mse' | 'typed'; warnings: string[] } {
+  if (typed !== undefined) return { value: typed, rule: 'typed', warnings: [] };
+  const warnings: string[] = [];
+  const shrink = Math.pow(score.length, -1 / 20);
+  let value: number;
+  try {
+    value = bandwidthMse(score, treated, cutoff, kernel).bandwidth * shrink;
+  } catch (e) {
+    if (!(e instanceof CutlineError)) throw e;
+    value = h * shrink;
+    warnings.push(
+      `the mse bandwidth of the take-up jump cannot be computed (${e.message}); the validity test uses the estimates' bandwidth × n^(−1/20) = ${formatNumber(value)}`,
+    );
+  }
+  const w = widenForTies(score, cutoff, value, 2);
+  if (w.widened) {
+    warnings.push(
+      `the validity test's bandwidth ${formatNumber(value)} holds a single score value on a side (mass points); it was widened to ${formatNumber(w.bandwidth)}`,
+    );
+  }
+  return { value: w.bandwidth, rule: 'undersmoothed mse', warnings };
+}
+
+export interface ValidityTestOptions {
+  kernel: KernelName;
+  sign: 1 | -1;
+  draws?: number;
+  seed?: number;
+  grid?: number;
+  trim?: number;
+  multiplier?: MultiplierName;
+  cells?: Int32Array;
+  cellLabels?: string[];
+}
+
+/**
+ * The verdict at multiples of the test bandwidth beside the headline test `at1`
+ * (same seed: common multipliers), sorted by multiple, with the warnings about
+ * a verdict that turns with the bandwidth.
+ */
+export function verdictByBandwidth(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  outcome: ArrayLike<number>,
+  cutoff: number,
+  testH: number,
+  sensitivity: number[] | undefined,
+  opts: ValidityTestOptions,
+  at1: ValidityResult,
+): { byBandwidth: ValidityAtBandwidth[]; warnings: string[] } {
+  const multiples = (sensitivity ?? DEFAULT_SENSITIVITY).filter((m) => m !== 1);
+  const others = validityByBandwidth(score, treated, outcome, cutoff, testH, multiples, opts);
+  const one: ValidityAtBandwidth = {
+    multiple: 1,
+    bandwidth: testH,
+    statistic: at1.statistic,
+    pvalue: at1.pvalue,
+    critical_value: at1.critical_value,
+    rejects: at1.pvalue <= 0.05,
+  };
+  const byBandwidth = multiples.length === 0 ? [one] : [...others, one].sort((a, b) => a.multiple - b.multiple);
+  return { byBandwidth, warnings: verdictWarnings(byBandwidth) };
+}
+
+/** A warning for each arm whose implied complier distribution falls somewhere. */
+export function complierWarnings(decreasing: { treated: Array<{ from: number; to: number }>; untreated: Array<{ from: number; to: number }> }): string[] {
+  const out: string[] = [];
+  for (const arm of ['treated', 'untreated'] as const) {
+    const list = decreasing[arm];
+    if (list.length === 0) continue;
+    const where = list.map((st) => `${formatNumber(st.from)} to ${formatNumber(st.to)}`).join(', ');
+    out.push(
+      `the implied distribution of ${arm} compliers' outcomes falls (from ${where}): a probability cannot fall, ` +
+        'so this is the picture of a violation of the design — or of noise; the validity test says which is likely',
+    );
+  }
+  return out;
+}
+
+export interface Donut {
+  /** 1 for rows inside the donut. */
+  mask: Uint8Array;
+  radius: number;
+  excluded: number;
+}
+
+/**
+ * Rows inside the donut |score − cutoff| < r, left out of every estimate and
+ * test (missing scores are left to the listwise rule); undefined without r.
+ */
+export function donutMask(score: ArrayLike<number>, cutoff: number, r?: number, missing?: Uint8Array): Donut | undefined {
+  if (r === undefined) return undefined;
+  if (typeof r !== 'number' || !(r > 0) || !Number.isFinite(r)) {
+    throw new CutlineError(`the donut must be a positive number, got ${r}`, { code: 'option', argument: 'donut' });
+  }
+  const mask = new Uint8Array(score.length);
+  let excluded = 0;
+  let below = 0;
+  let above = 0;
+  for (let i = 0; i < mask.length; i++) {
+    if (missing?.[i]) continue;
+    const x = score[i] - cutoff;
+    if (Math.abs(x) < r) {
+      mask[i] = 1;
+      excluded++;
+    } else if (x < 0) below++;
+    else above++;
+  }
+  if (below === 0 || above === 0) {
+    throw new CutlineError(`the donut ${r} leaves no unit ${below === 0 ? 'below' : 'above'} the cutoff`, { code: 'empty-side', argument: 'donut' });
+  }
+  return { mask, radius: r, excluded };
+}
+
+/** The score must vary and have units on both sides of the cutoff (read off the sorted order every window uses anyway). */
+export function requireSides(score: ArrayLike<number>, cutoff: number): void {
+  const order = sortedOrder(score);
+  const lo = score[order[0]];
+  const hi = score[order[order.length - 1]];
+  if (lo === hi) {
+    throw new CutlineError(`the score is constant (every used row is ${lo}); there is no discontinuity to study`, { code: 'constant', argument: 'score' });
+  }
+  if (!(lo < cutoff)) throw new CutlineError(`no unit has a score below the cutoff ${cutoff}`, { code: 'empty-side', argument: 'cutoff' });
+  if (!(hi >= cutoff)) throw new CutlineError(`no unit has a score at or above the cutoff ${cutoff}`, { code: 'empty-side', argument: 'cutoff' });
+}
+
+/** A column that must vary on the rows used (`what` names it, `why` says what fails without variation). */
+export function requireVaries(v: ArrayLike<number>, argument: string, what: string, why: string): void {
+  for (let i = 1; i < v.length; i++) if (v[i] !== v[0]) return;
+  throw new CutlineError(`${what} is constant (every used row is ${v[0]}): ${why}`, { code: 'constant', argument });
+}
