@@ -1,5 +1,5 @@
 /**
- * Timings of the validity test (METHODS.md §4): the whole test and the
+ * Timings of the validity test (docs/methods.md §4): the whole test and the
  * bootstrap alone, at 1e5 and 1e6 rows, 999 normal draws, grid 30, and the
  * Rademacher bootstrap for comparison; peak RSS at the end.
  * Run: node bin/run-ts.cjs bench/validityBench.ts

@@ -1,5 +1,5 @@
 /**
- * Monte Carlo size and power of the validity test (METHODS.md §4, §9) at 5%,
+ * Monte Carlo size and power of the validity test (docs/methods.md §4) at 5%,
  * on designs built here (score U(−1, 1), cutoff 0, every outcome plus 0.3·R so
  * that the local linear fits matter). Compliance types: always-takers (a),
  * never-takers (n), compliers (c), defiers (f).

@@ -1,6 +1,6 @@
 /**
  * Binned means of a column on each side of the cutoff, with the local linear
- * fit lines, for a plot (docs/methods.md): the bins of a check's plot data, at
+ * fit lines, for a plot (docs/methods.md §8): the bins of a check's plot data, at
  * the typed bandwidth or the rule's bandwidth for this column's sharp jump.
  *
  * @example binnedMeansAt(score, bill, 60).bins[0] // { from, to, mean, count, … }

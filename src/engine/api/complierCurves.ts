@@ -1,6 +1,6 @@
 /**
  * The implied distribution of compliers' outcomes at given outcome values
- * (Imbens & Rubin 1997 at the cutoff; docs/methods.md): the CDF of treated
+ * (Imbens & Rubin 1997 at the cutoff; docs/methods.md §5): the CDF of treated
  * (arm 1) or untreated (arm 0) compliers, or its kernel density, at the
  * check's bandwidth and eligible side, on the outcome's own rows.
  *

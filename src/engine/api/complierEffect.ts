@@ -1,7 +1,7 @@
 /**
  * The effect for compliers (fuzzy discontinuity): the outcome's jump divided by
  * the take-up jump on the same rows, with delta-method and robust
- * bias-corrected inference (docs/methods.md). Bandwidth, eligible side and
+ * bias-corrected inference (docs/methods.md §2.4). Bandwidth, eligible side and
  * rows are settled exactly as in a check (check/setting.ts), so with one
  * outcome this gives `runCheck`'s numbers to the last digit; the take-up and
  * the jump it divides are returned beside it (effect = jump / takeup).

@@ -1,5 +1,5 @@
 /**
- * One covariate's continuity at the cutoff (docs/methods.md): its local linear
+ * One covariate's continuity at the cutoff (docs/methods.md §7): its local linear
  * jump at its own bandwidth (the estimates' rule on the covariate's sharp jump,
  * or the typed one) and the Canay & Kamat (2018) permutation test of the units
  * nearest the cutoff — a check's balance row for this covariate.

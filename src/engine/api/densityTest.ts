@@ -1,5 +1,5 @@
 /**
- * The tests of a jump in the score's density at the cutoff (docs/methods.md):
+ * The tests of a jump in the score’s density at the cutoff (docs/methods.md §6):
  * the local polynomial test (Cattaneo, Jansson & Ma 2020), the headline when
  * it can be computed, and McCrary's (2008), on every row with a score (outside
  * the donut), as in a check.

@@ -1,6 +1,6 @@
 /**
  * The jump in an outcome's mean at the cutoff (eligible side minus the other),
- * local linear with robust bias-corrected inference (docs/methods.md). With
+ * local linear with robust bias-corrected inference (docs/methods.md §2.4). With
  * `treated` in the options it is the check's jump to the last digit (the
  * bandwidth of the complier effect, the eligible side from take-up, the rows
  * complete in both); without, the sharp jump at the typed bandwidth or the

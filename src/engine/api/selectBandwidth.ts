@@ -1,5 +1,5 @@
 /**
- * A bandwidth as a check chooses it (docs/methods.md): `purpose: 'estimate'`
+ * A bandwidth as a check chooses it (docs/methods.md §3 and §4.9): `purpose: 'estimate'`
  * the estimates' bandwidth (the rule on the complier effect of `values` when
  * `treated` is given, else on the sharp jump of `values`; a typed bandwidth
  * wins); `purpose: 'test'` the validity test's default (the mse bandwidth of

@@ -1,7 +1,7 @@
 /**
  * The take-up jump (first stage) at the cutoff: the local linear jump in the
  * share treated, eligible side minus the other, with robust bias-corrected
- * inference (docs/methods.md). The bandwidth is the typed one, else the rule
+ * inference (docs/methods.md §2.4). The bandwidth is the typed one, else the rule
  * applied to the take-up jump itself; pass a check's bandwidth to get the
  * check's take-up to the last digit.
  *

@@ -1,6 +1,6 @@
 /**
  * The outcome–treatment validity test of one outcome (Arai, Hsu, Kitagawa,
- * Mourifié & Wan 2022; docs/methods.md) at the check's test bandwidth, with
+ * Mourifié & Wan 2022; docs/methods.md §4) at the check's test bandwidth, with
  * its by-bandwidth table — the same steps as `runCheck`, so the same numbers
  * to the last digit. `cells` (whole-number codes) runs it within the cells of
  * a discrete covariate.

@@ -6,7 +6,7 @@
  * (setting.ts, steps.ts, outcomeSections.ts), so that a worksheet function and
  * `cutline check` give the same number to the last digit.
  *
- * Choices (docs/methods.md):
+ * Choices (docs/methods.md §1 and §2.6):
  * - listwise per calculation: the take-up jump uses rows complete in score,
  *   treated (and cluster); each outcome uses rows complete in score, treated,
  *   that outcome (and cluster), and reports its own take-up jump on those rows;

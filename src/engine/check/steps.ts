@@ -3,7 +3,7 @@
  * for one quantity (a worksheet function) computes it exactly as `runCheck`
  * does: the eligible side, the estimates' bandwidth, the validity test's
  * bandwidth, the by-bandwidth verdict, the complier warnings and the donut.
- * The choices behind them are in docs/methods.md.
+ * The choices behind them are in docs/methods.md §2.6, §4.9, §5 and §9.
  */
 import { BandwidthChoice, BandwidthRule, chooseBandwidth } from '../bandwidth';
 import { bandwidthMse } from '../bandwidth';
