@@ -22,6 +22,6 @@ export function binnedMeansAt(score: Column, values: Column, cutoff: number, opt
   const r = indexScores(compact(input.score.values, rows));
   const v = compact(y.values, rows);
   const bw = chooseBandwidth(r, v, cutoff, { rule: opts.rule, kernel, typed: opts.bandwidth });
-  const { name: _name, ...series } = binnedSeries('values', r, v, cutoff, bw.value, kernel);
-  return { ...series, bandwidth: bw.value, counts: windowCounts(r, cutoff, bw.value), rows: { used: rows.length, dropped }, warnings: merged(bw.warnings) };
+  const series = binnedSeries('values', r, v, cutoff, bw.value, kernel);
+  return { bins: series.bins, bins_below: series.bins_below, bins_above: series.bins_above, rule: series.rule, fit: series.fit, bandwidth: bw.value, counts: windowCounts(r, cutoff, bw.value), rows: { used: rows.length, dropped }, warnings: merged(bw.warnings) };
 }
