@@ -11,11 +11,14 @@ export function toJson(r: CheckResult): Record<string, unknown> {
     rows: r.rows,
     bandwidth: { value: r.bandwidth.value, rule: r.bandwidth.rule, kernel: r.bandwidth.kernel, variance: r.bandwidth.variance, window: r.bandwidth.window },
     takeup: r.takeup,
+    takeup_rows: r.takeup_rows,
     test_bandwidth: r.test_bandwidth,
     outcomes: r.outcomes.map((o) => ({
       name: o.name,
       rows: o.rows,
       window: o.window,
+      // The take-up jump on this outcome's own rows: effect = jump / takeup exactly.
+      takeup: o.takeup,
       jump: o.jump,
       effect: o.effect,
       validity: {

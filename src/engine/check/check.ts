@@ -107,6 +107,8 @@ export interface CheckResult {
   rows: { read: number; used: number; dropped: number };
   bandwidth: { value: number; rule: BandwidthRule | 'typed'; kernel: KernelName; variance: VarianceName; window: { below: number; above: number } };
   takeup: EstimateSummary;
+  /** The take-up jump's rows: complete in score and treated (and the cluster), outside the donut. */
+  takeup_rows: { used: number; dropped: number };
   /** The bandwidth of the validity test: mse of take-up × n^(−1/20), or the typed one. */
   test_bandwidth: { value: number; rule: 'undersmoothed mse' | 'typed' };
   outcomes: OutcomeResult[];
@@ -204,6 +206,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     },
     bandwidth: { value: h, rule: s.bandwidth.rule, kernel, variance, window: takeupEst.counts },
     takeup: takeupEst.takeup,
+    takeup_rows: { used: tk.rows.length, dropped: tk.dropped },
     test_bandwidth: { value: testH.value, rule: testH.rule },
     outcomes,
     density,
