@@ -9,10 +9,6 @@ export type KernelName = 'triangular' | 'epanechnikov' | 'uniform';
 
 export const KERNEL_NAMES: readonly KernelName[] = ['triangular', 'epanechnikov', 'uniform'];
 
-export function isKernelName(s: string): s is KernelName {
-  return (KERNEL_NAMES as readonly string[]).includes(s);
-}
-
 /** K(u) for the named kernel. */
 export function kernelWeight(kernel: KernelName, u: number): number {
   const a = Math.abs(u);
