@@ -28,7 +28,7 @@ import { CutlineError } from '../errors';
 import { KernelName } from '../fit';
 import { gathered } from '../fit';
 import { formatNumber } from '../numeric';
-import { firstAtLeast } from '../numeric';
+import { searchSorted } from '../numeric';
 
 export interface ComplierOptions {
   bandwidth: number;
@@ -149,7 +149,7 @@ export function complierCdf(
     for (let t = 0; t < w.length; t++) {
       if (d[t] !== arm) continue;
       const v = y[t];
-      bucket[firstAtLeast((j) => grid[j], 0, grid.length, v, false)] += c * w[t];
+      bucket[searchSorted(grid, v, false)] += c * w[t];
     }
   }
   const sortedCdf: number[] = [];

@@ -70,6 +70,11 @@ export function checkColumns<K extends string>(columns: Record<K, ColumnSpec>): 
     const typed = c instanceof Float64Array;
     const v = typed ? c : new Float64Array(c.length);
     const where = { code: 'bad-value' as const, argument: arg(name) };
+    const masked = missing !== undefined && missing.indexOf(1) >= 0;
+    if (typed && !masked && quickPass(c as Float64Array, kind)) {
+      out[name] = v;
+      continue;
+    }
     for (let i = 0; i < c.length; i++) {
       if (missing?.[i]) {
         if (!typed) v[i] = NaN; // never read: every calculation drops the row
@@ -84,6 +89,21 @@ export function checkColumns<K extends string>(columns: Record<K, ColumnSpec>): 
     out[name] = v;
   }
   return out;
+}
+
+/** True when every value is fine (the common case, checked in one tight pass); else the slow pass says where. */
+function quickPass(v: Float64Array, kind: 'number' | 'binary' | 'code'): boolean {
+  if (kind === 'binary') {
+    for (let i = 0; i < v.length; i++) if (v[i] !== 0 && v[i] !== 1) return false;
+    return true;
+  }
+  if (kind === 'code') {
+    for (let i = 0; i < v.length; i++) if (Math.floor(v[i]) !== v[i] || !Number.isFinite(v[i])) return false;
+    return true;
+  }
+  // x − x is 0 for every finite number, NaN for NaN and ±Infinity.
+  for (let i = 0; i < v.length; i++) if (v[i] - v[i] !== 0) return false;
+  return true;
 }
 
 /** The cutoff: a finite number. */
