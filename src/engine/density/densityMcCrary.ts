@@ -23,7 +23,7 @@
  * Errors: a bin wider than the score range, a side without units, fewer than
  * 6 bins on a side for the rule of thumb, fewer than 3 bins on a side within
  * the bandwidth, a non-positive density estimate. Warnings: a discrete or
- * heaped score near the cutoff (massPoints.ts), fewer than 30 units in a
+ * heaped score near the cutoff (data/repeatedScores.ts), fewer than 30 units in a
  * side's window.
  *
  * @example mccraryTest(score, 60).pvalue
