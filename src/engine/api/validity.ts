@@ -34,7 +34,8 @@ export function validity(score: Column, treated: Column, outcome: Column, cutoff
   const input = columnsInput({ score, treated, outcome }, opts);
   if (opts.cells !== undefined) {
     const codes = checkColumns({ score: { values: input.score.values }, cells: { values: opts.cells, kind: 'code' } }).cells;
-    const n = Math.max(0, ...Array.from(codes, (c) => c + 1));
+    let n = 0;
+    for (let i = 0; i < codes.length; i++) if (codes[i] + 1 > n) n = codes[i] + 1;
     input.within = { name: 'cells', codes: Int32Array.from(codes), labels: opts.cellLabels ?? Array.from({ length: n }, (_, k) => String(k)) };
   }
   const s = settle(input, { ...opts, cutoff });

@@ -230,3 +230,19 @@ describe('no hidden state: changing an input array between two calls gives the n
     expect(b.outcomes[0].jump.estimate).not.toBe(a.outcomes[0].jump.estimate);
   });
 });
+
+test('validity within cells: the same as the check with a discrete covariate', () => {
+  const d = demoInput({ outcomes: ['heating_bill'] });
+  const size = demoInput({ covariates: ['household_size'] }).covariates![0];
+  const codes = Int32Array.from(size.values, (v) => v - 1);
+  const labels = ['1', '2', '3', '4', '5', '6', '7', '8'];
+  const c = runCheck({ ...d, within: { name: 'household_size', codes, labels } }, { cutoff: DEMO_CUTOFF, draws: 99, sensitivity: [] });
+  const v = validity(d.score.values, d.treated.values, d.outcomes[0].values, DEMO_CUTOFF, {
+    draws: 99,
+    sensitivity: [],
+    cells: codes,
+    cellLabels: labels,
+    missing: { score: d.score.missing, treated: d.treated.missing, outcome: d.outcomes[0].missing },
+  });
+  expect([v.statistic, v.pvalue, v.intervals, v.worst]).toEqual([c.outcomes[0].validity.statistic, c.outcomes[0].validity.pvalue, c.outcomes[0].validity.intervals, c.outcomes[0].validity.worst]);
+});
