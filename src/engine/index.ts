@@ -86,6 +86,6 @@ export { Random } from './numeric';
 export { bootstrapMaxima, resolveValidityOptions, selection, validityMomentSets, validityTest } from './validity';
 export { localPolynomialDensityTest, mccraryTest } from './density';
 export { permutationBalanceTest } from './covariates';
-export { bandwidthMse } from './bandwidth';
+export { bandwidthMse, chooseBandwidth } from './bandwidth';
 export { boundaryWindow, estimatesAtCutoff, jumpAt } from './fit';
 export { binnedMeans } from './plots';
