@@ -13,7 +13,7 @@
 import { rememberedOn } from '../data';
 import { CutlineError } from '../errors';
 import { sampleCovariance, sampleVariance } from '../numeric';
-import { lowerBound, sortedOrder, valuesAt } from '../data';
+import { lowerBound, orderView, sortedOrder, valuesAt } from '../data';
 import { invertSmall } from '../numeric';
 
 export interface Pilots {
@@ -128,7 +128,7 @@ function cubicInverse(score: ArrayLike<number>, cutoff: number, band: Int32Array
   return rememberedOn(score, `cubic|${cutoff}|${scale}|${band.byteOffset}|${band.length}`, () => {
     const m = new Float64Array(7); // Σ u^k, k = 0..6
     const ms = new Float64Array(4); // Σ_{R ≥ c} u^k, k = 0..3
-    const r = valuesAt(band, score);
+    const r = valuesAt(band, score, orderView(score, band));
     for (let t = 0; t < band.length; t++) {
       const u = (r[t] - cutoff) / scale;
       const u2 = u * u;
@@ -164,8 +164,9 @@ export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<numb
   const inv = cubicInverse(score, cutoff, band, scale);
   if (!inv) throw new CutlineError('the scores between the two side medians take too few values for the pilot cubic fit');
   const xty = [0, 0, 0, 0, 0];
-  const r = valuesAt(band, score);
-  const vs = valuesAt(band, values);
+  const view = orderView(score, band);
+  const r = valuesAt(band, score, view);
+  const vs = valuesAt(band, values, view);
   for (let t = 0; t < band.length; t++) {
     const u = (r[t] - cutoff) / scale;
     const v = vs[t];

@@ -44,19 +44,10 @@ export function rememberedOn<V>(score: ArrayLike<number>, key: string, make: () 
   return v;
 }
 
-// Windows of whole arrays are views (subarrays) of the sorted order, so a
-// window's units are a contiguous run of it and a column gathered once into
-// sorted order serves every window as a slice. The registry maps the engine's
-// own order buffers (never a caller's array) to their gathered columns; an
-// order lives as long as its handle, or the call, that made it.
-const views = new WeakMap<ArrayBufferLike, SortedOrder>();
-
 function makeOrder(score: ArrayLike<number>): SortedOrder {
   const all = new Int32Array(score.length);
   for (let i = 0; i < all.length; i++) all[i] = i;
-  const s = { order: argsortBy(score, all), columns: new WeakMap<object, Float64Array>() };
-  views.set(s.order.buffer, s);
-  return s;
+  return { order: argsortBy(score, all), columns: new WeakMap<object, Float64Array>() };
 }
 
 /** Positions of all units sorted by score (ties by position): once per handle, afresh for a plain array. */
@@ -71,21 +62,37 @@ export function lowerBound(score: ArrayLike<number>, order: Int32Array, v: numbe
 }
 
 /**
- * values[index[t]] for a window's positions: a slice of the column gathered
- * into sorted order when the positions are a view of a sorted order, else a
- * plain gather (callers only read it).
+ * Where a run of positions sits in a handle's sorted order. Windows of whole
+ * arrays are views (subarrays) of the sorted order, so a window's units are a
+ * contiguous run of it, and a column gathered once into sorted order (kept by
+ * the handle, per column) serves every window as a slice.
  */
-export function valuesAt(index: Int32Array, values: ArrayLike<number>): Float64Array {
-  const s = views.get(index.buffer);
-  if (s && index.length > 0) {
-    const start = (index.byteOffset - s.order.byteOffset) / Int32Array.BYTES_PER_ELEMENT;
+export interface OrderView {
+  sorted: SortedOrder;
+  start: number;
+}
+
+/** The view of `index` in the sorted order of the handle `score`, if it is one (else undefined). */
+export function orderView(score: ArrayLike<number>, index: Int32Array): OrderView | undefined {
+  if (!(score instanceof IndexedScore) || !score.sorted || index.buffer !== score.sorted.order.buffer || index.length === 0) return undefined;
+  return { sorted: score.sorted, start: (index.byteOffset - score.sorted.order.byteOffset) / Int32Array.BYTES_PER_ELEMENT };
+}
+
+/**
+ * values[index[t]] for a window's positions: a slice of the column gathered
+ * into sorted order when the positions are a view of it, else a plain gather
+ * (callers only read it).
+ */
+export function valuesAt(index: Int32Array, values: ArrayLike<number>, view?: OrderView): Float64Array {
+  if (view) {
+    const s = view.sorted;
     let col = s.columns.get(values as object);
     if (!col) {
       col = new Float64Array(s.order.length);
       for (let t = 0; t < s.order.length; t++) col[t] = values[s.order[t]];
       s.columns.set(values as object, col);
     }
-    return col.subarray(start, start + index.length);
+    return col.subarray(view.start, view.start + index.length);
   }
   const out = new Float64Array(index.length);
   for (let t = 0; t < index.length; t++) out[t] = values[index[t]];

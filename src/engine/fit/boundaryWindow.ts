@@ -15,7 +15,7 @@
  *   const w = boundaryWindow(score, 60, 8, 'triangular');
  *   const a = w.above.coef[0].reduce((s, om, i) => s + om * y[w.above.index[i]], 0);
  */
-import { IndexedScore, sortedOrder, lowerBound, valuesAt } from '../data';
+import { IndexedScore, lowerBound, OrderView, orderView, sortedOrder, valuesAt } from '../data';
 import { CutlineError } from '../errors';
 import { KernelName, kernelWeight } from './kernels';
 import { invertSmall } from '../numeric';
@@ -48,11 +48,13 @@ export interface SideMemo {
   gathered: WeakMap<object, Float64Array>;
   residuals: WeakMap<object, Float64Array>;
   biasCorrected?: Float64Array;
+  /** Where the side's units sit in the score handle's sorted order (columns are then read as slices). */
+  view?: OrderView;
   compliers: WeakMap<object, WeakMap<object, unknown>>;
 }
 
-export function sideMemo(): SideMemo {
-  return { gathered: new WeakMap(), residuals: new WeakMap(), compliers: new WeakMap() };
+export function sideMemo(view?: OrderView): SideMemo {
+  return { gathered: new WeakMap(), residuals: new WeakMap(), compliers: new WeakMap(), view };
 }
 
 export interface Window {
@@ -168,7 +170,7 @@ function windowPositions(score: ArrayLike<number>, cutoff: number, h: number, ro
   let e = lowerBound(score, order, cutoff + h, false);
   while (e > c && !(score[order[e - 1]] - cutoff < h)) e--;
   while (e < order.length && score[order[e]] - cutoff < h) e++;
-  // Views, not copies: see valuesAt.
+  // Views, not copies: see orderView.
   return { above: order.subarray(c, e), below: order.subarray(Math.min(a, c), c) };
 }
 
@@ -181,7 +183,7 @@ function coordinates(
   index: Int32Array,
 ): { x: Float64Array; k: Float64Array; distinct: number } {
   const n = index.length;
-  const r = valuesAt(index, score);
+  const r = valuesAt(index, score, orderView(score, index));
   const x = new Float64Array(n);
   const k = new Float64Array(n);
   let distinct = 0;
@@ -220,7 +222,7 @@ function fitPositions(
     );
   }
   const [w0, w1] = polyWeights(x, k, h, 1, above);
-  const fit: SideFit = { above, index, x, k, coef1: [w0, w1], distinct, memo: sideMemo() };
+  const fit: SideFit = { above, index, x, k, coef1: [w0, w1], distinct, memo: sideMemo(orderView(score, index)) };
   if (withQuadratic) {
     if (distinct < 3 || n < 4) {
       throw new CutlineError(
@@ -262,7 +264,7 @@ export function curvatureWeights(
       `the curvature pilot (bandwidth ${formatNumber(b, 6)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) for a quadratic fit — type a bandwidth instead`,
     );
   }
-  return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2], memo: sideMemo() };
+  return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2], memo: sideMemo(orderView(score, index)) };
 }
 
 function checkBandwidth(h: number): void {

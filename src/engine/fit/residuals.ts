@@ -50,7 +50,7 @@ export function gathered(side: SortedSide, values: ArrayLike<number>): Float64Ar
   const memo = side.memo?.gathered;
   let v = memo?.get(values as object);
   if (!v) {
-    v = valuesAt(side.index, values);
+    v = valuesAt(side.index, values, side.memo?.view);
     memo?.set(values as object, v);
   }
   return v;
