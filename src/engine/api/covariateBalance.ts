@@ -6,9 +6,8 @@
  *
  * @example covariateBalance(score, age, 60).pvalue // 0.145 on the demo
  */
-import { balanceSection, BalanceRow } from '../check';
+import { balanceSection, BalanceRow, donutMask } from '../check';
 import { checkCutoff, Column, compact, completeRows, indexScores } from '../data';
-import { donutMask } from '../check';
 import { columnsInput, EstimateOptions, ResultBase, windowCounts } from './common';
 
 export interface BalanceReport extends Omit<BalanceRow, 'bandwidth' | 'rows' | 'warnings'>, ResultBase {}

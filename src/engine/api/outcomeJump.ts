@@ -9,10 +9,9 @@
  * @example outcomeJump(score, bill, 60, { treated }).estimate // −78.42 on the demo
  */
 import { chooseBandwidth } from '../bandwidth';
-import { outcomeEstimates, settle } from '../check';
+import { outcomeEstimates, settle, donutMask } from '../check';
 import { checkCutoff, Column, completeRows, indexScores, compact } from '../data';
 import { boundaryWindow, jumpAt, windowWarnings } from '../fit';
-import { donutMask } from '../check';
 import { columnsInput, EstimateOptions, merged } from './common';
 import { EstimateResult } from './takeupJump';
 

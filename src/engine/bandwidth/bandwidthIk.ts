@@ -21,11 +21,9 @@
  */
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, olsCoefficients, pilotCovariance, pilotVariance, Pilots, pilotWindow, thirdDerivative } from './bandwidthPilots';
-import { boundaryWindow } from '../fit';
+import { boundaryWindow, KernelName, smoothJump } from '../fit';
 import { widenForTies } from './bandwidthTies';
 import { CutlineError } from '../errors';
-import { KernelName } from '../fit';
-import { smoothJump } from '../fit';
 
 export interface IkSide {
   sigma2: number;

@@ -24,13 +24,10 @@
  */
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, pilotVariance, pilotWindow, thirdDerivative } from './bandwidthPilots';
-import { boundaryWindow, curvatureWeights, SortedSide, sortedOrder } from '../fit';
+import { boundaryWindow, curvatureWeights, SortedSide, varianceOf, KernelName, gathered, neighbourResiduals, ratioPsi, smoothJump } from '../fit';
+import { sortedOrder } from '../data';
 import { widenForTies } from './bandwidthTies';
 import { CutlineError } from '../errors';
-import { varianceOf } from '../fit';
-import { KernelName } from '../fit';
-import { gathered, neighbourResiduals } from '../fit';
-import { ratioPsi, smoothJump } from '../fit';
 
 export interface MseBandwidth {
   bandwidth: number;

@@ -10,11 +10,9 @@
  *   squares fit of V on (1, 1{R ≥ c}, x, x², x³) among the units whose score
  *   lies between the median score below and the median score above the cutoff.
  */
-import { rememberedOn } from '../data';
+import { rememberedOn, lowerBound, orderView, sortedOrder, valuesAt } from '../data';
 import { CutlineError } from '../errors';
-import { sampleCovariance, sampleVariance } from '../numeric';
-import { lowerBound, orderView, sortedOrder, valuesAt } from '../data';
-import { invertSmall } from '../numeric';
+import { sampleCovariance, sampleVariance, invertSmall } from '../numeric';
 
 export interface Pilots {
   n: number;

@@ -19,13 +19,9 @@
 import { BandwidthRule } from '../bandwidth';
 import { CutlineError } from '../errors';
 import { completeRows } from '../data';
-import { Estimate } from '../fit';
-import { estimatesAtCutoff } from '../fit';
-import { KernelName } from '../fit';
-import { VarianceName } from '../fit';
+import { Estimate, estimatesAtCutoff, KernelName, VarianceName } from '../fit';
 import { holmAdjust } from '../numeric';
-import { MultiplierName } from '../validity';
-import { ValidityAtBandwidth } from '../validity';
+import { MultiplierName, ValidityAtBandwidth } from '../validity';
 import { balanceSection, BalanceRow, binnedSeries, BinnedSeries, densitySection, DensitySection } from './designChecks';
 import { complierSummary, outcomeEstimates, outcomeValidity } from './outcomeSections';
 import { CheckInput, keep, settle, SettingOptions } from './setting';

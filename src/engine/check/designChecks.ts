@@ -12,17 +12,12 @@
  * cannot be computed on these data is left out with a warning saying why.
  */
 import { BandwidthRule, chooseBandwidth } from '../bandwidth';
-import { binnedMeans, BinnedMeansResult } from '../plots';
-import { boundaryWindow } from '../fit';
+import { binnedMeans, BinnedMeansResult, fitLine, FitLineSide } from '../plots';
+import { boundaryWindow, jumpAt, KernelName, VarianceName } from '../fit';
 import { permutationBalanceTest } from '../covariates';
-import { localPolynomialDensityTest, LocalPolynomialDensityResult } from '../density';
-import { mccraryTest, McCraryResult } from '../density';
+import { localPolynomialDensityTest, LocalPolynomialDensityResult, mccraryTest, McCraryResult } from '../density';
 import { CutlineError } from '../errors';
-import { fitLine, FitLineSide } from '../plots';
 import { holmAdjust } from '../numeric';
-import { jumpAt } from '../fit';
-import { KernelName } from '../fit';
-import { VarianceName } from '../fit';
 
 export const DENSITY_CAUTION =
   'A jump in the density of the score is evidence of sorting around the cutoff, not proof of an invalid design (sorting unrelated to outcomes leaves the estimand intact); a smooth density is no proof of validity.';

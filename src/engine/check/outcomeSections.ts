@@ -4,12 +4,9 @@
  * distributions — computed from a settled check (setting.ts), so that
  * `runCheck` and the entry points for one quantity share them.
  */
-import { complierCdf, complierDensity, complierMeans } from '../compliers';
-import { complierGrid } from '../compliers';
-import { CutoffEstimates, estimatesAtCutoff } from '../fit';
-import { KernelName } from '../fit';
-import { MultiplierName } from '../validity';
-import { validityTest } from '../validity';
+import { complierCdf, complierDensity, complierMeans, complierGrid } from '../compliers';
+import { CutoffEstimates, estimatesAtCutoff, KernelName } from '../fit';
+import { MultiplierName, validityTest } from '../validity';
 import type { ComplierSummary, ValiditySummary } from './check';
 import { CheckInput, DataColumn, Prepared, Setting } from './setting';
 import { complierWarnings, verdictByBandwidth } from './steps';

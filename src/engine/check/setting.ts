@@ -8,13 +8,9 @@
  * check derives from the scores is reused within it, never across calls.
  */
 import { BandwidthChoice, BandwidthRule, chooseBandwidth } from '../bandwidth';
-import { checkColumns, checkCutoff } from '../data';
-import { IndexedScore, indexScores } from '../data';
-import { compact, completeRows } from '../data';
+import { checkColumns, checkCutoff, IndexedScore, indexScores, compact, completeRows } from '../data';
 import { CutlineError } from '../errors';
-import { Window } from '../fit';
-import { KernelName } from '../fit';
-import { VarianceName } from '../fit';
+import { Window, KernelName, VarianceName } from '../fit';
 import { Donut, donutMask, Eligible, eligibleSide, estimatesBandwidth, requireSides, requireVaries } from './steps';
 
 export interface DataColumn {

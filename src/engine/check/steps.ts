@@ -5,15 +5,12 @@
  * bandwidth, the by-bandwidth verdict, the complier warnings and the donut.
  * The choices behind them are in docs/methods.md §2.6, §4.9, §5 and §9.
  */
-import { BandwidthChoice, BandwidthRule, chooseBandwidth } from '../bandwidth';
-import { bandwidthMse } from '../bandwidth';
-import { widenForTies } from '../bandwidth';
+import { BandwidthChoice, BandwidthRule, chooseBandwidth, bandwidthMse, widenForTies } from '../bandwidth';
 import { CutlineError } from '../errors';
-import { applyWeights, boundaryWindow, sortedOrder, Window } from '../fit';
-import { KernelName } from '../fit';
+import { applyWeights, boundaryWindow, Window, KernelName } from '../fit';
+import { sortedOrder } from '../data';
 import { formatNumber } from '../numeric';
-import { MultiplierName } from '../validity';
-import { validityByBandwidth, ValidityAtBandwidth, ValidityResult, verdictWarnings } from '../validity';
+import { MultiplierName, validityByBandwidth, ValidityAtBandwidth, ValidityResult, verdictWarnings } from '../validity';
 
 export type Eligible = 'above' | 'below';
 

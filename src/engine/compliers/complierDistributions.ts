@@ -23,12 +23,9 @@
  * @example
  *   complierCdf(score, treated, bill, 60, [400, 500, 600], 1, { bandwidth: 8, kernel: 'triangular' }).cdf
  */
-import { SideFit, Window, applyWeights, boundaryWindow } from '../fit';
+import { SideFit, Window, applyWeights, boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
-import { KernelName } from '../fit';
-import { gathered } from '../fit';
-import { formatNumber } from '../numeric';
-import { searchSorted } from '../numeric';
+import { formatNumber, searchSorted } from '../numeric';
 
 export interface ComplierOptions {
   bandwidth: number;

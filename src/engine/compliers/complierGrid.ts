@@ -5,9 +5,7 @@
  * an outcome value each). Cutline's choice: a grid that follows the data, so
  * a decreasing stretch of an implied CDF is seen where the units are.
  */
-import { boundaryWindow } from '../fit';
-import { KernelName } from '../fit';
-import { gathered } from '../fit';
+import { boundaryWindow, KernelName, gathered } from '../fit';
 import { orderStatistics } from '../numeric';
 
 export const COMPLIER_GRID_POINTS = 25;

@@ -13,8 +13,7 @@
  *   const s = indexScores(Float64Array.of(3, 1, 2));
  *   sortedOrder(s); // Int32Array [1, 2, 0], computed once for s
  */
-import { argsortBy } from '../numeric';
-import { firstAtLeast } from '../numeric';
+import { argsortBy, firstAtLeast } from '../numeric';
 
 /** A sorted order with the columns gathered into it (read-only for every caller). */
 interface SortedOrder {

@@ -38,15 +38,10 @@
  * @example localPolynomialDensityTest(score, 60).pvalue
  */
 import { CutlineError } from '../errors';
-import { sortedOrder } from '../data';
-import { firstAtLeast } from '../numeric';
+import { sortedOrder, countDistinctSorted, distinctScoreWarning, requireBothSides, scoreSummary, ScoreSummary } from '../data';
+import { firstAtLeast, invertSmall, normalQuantile, twoSidedPvalue, formatNumber } from '../numeric';
 import { histogramHeights, mccraryDefaultBin } from './densityMcCrary';
-import { invertSmall } from '../numeric';
-import { countDistinctSorted, distinctScoreWarning } from '../data';
-import { normalQuantile, twoSidedPvalue } from '../numeric';
 import { fitPolynomial, polyDerivative, polyValue } from '../fit';
-import { requireBothSides, scoreSummary, ScoreSummary } from '../data';
-import { formatNumber } from '../numeric';
 
 export interface LocalPolynomialDensityOptions {
   bandwidth?: number;

@@ -29,11 +29,9 @@
  * @example mccraryTest(score, 60).pvalue
  */
 import { CutlineError } from '../errors';
-import { distinctScoreWarning, windowDistinctScores } from '../data';
-import { twoSidedPvalue } from '../numeric';
+import { distinctScoreWarning, windowDistinctScores, requireBothSides, scoreSummary, ScoreSummary } from '../data';
+import { twoSidedPvalue, formatNumber } from '../numeric';
 import { fitPolynomial, polyDerivative, polyValue } from '../fit';
-import { requireBothSides, scoreSummary, ScoreSummary } from '../data';
-import { formatNumber } from '../numeric';
 
 export interface McCraryOptions {
   bin?: number;

@@ -18,11 +18,8 @@
 import { IndexedScore, lowerBound, OrderView, orderView, sortedOrder, valuesAt } from '../data';
 import { CutlineError } from '../errors';
 import { KernelName, kernelWeight } from './kernels';
-import { invertSmall } from '../numeric';
-import { argsortBy } from '../numeric';
-import { formatNumber } from '../numeric';
+import { invertSmall, argsortBy, formatNumber } from '../numeric';
 
-export { lowerBound, sortedOrder, valuesAt };
 
 export interface SideFit {
   /** True for the side R ≥ c. */

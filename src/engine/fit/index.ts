@@ -1,6 +1,6 @@
 // The public face of src/engine/fit: what other folders and the engine's index (src/engine/index.ts) use.
 // Everything not listed here is private to the folder; import it from here, never from its file.
-export { applyWeights, boundaryWindow, curvatureWeights, sideFit, sortedOrder } from './boundaryWindow';
+export { applyWeights, boundaryWindow, curvatureWeights, sideFit } from './boundaryWindow';
 export type { SideFit, SortedSide, Window } from './boundaryWindow';
 export type { Estimate } from './estimate';
 export { estimatesAtCutoff, windowWarnings } from './estimatesAtCutoff';

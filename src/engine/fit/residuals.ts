@@ -14,7 +14,8 @@
  *   (a score with mass points would otherwise let the row order pick among
  *   tied units); Cutline's reading, recalled from memory as the supplement's.
  */
-import { SideFit, SortedSide, valuesAt } from './boundaryWindow';
+import { valuesAt } from '../data';
+import { SideFit, SortedSide } from './boundaryWindow';
 
 export type VarianceName = 'hc0' | 'hc1' | 'neighbours' | 'cluster';
 export const VARIANCE_NAMES: readonly VarianceName[] = ['hc0', 'hc1', 'neighbours', 'cluster'];

@@ -7,8 +7,7 @@
  *
  * @example fitLine(score, bill, 60, 8, 'triangular').above.intercept
  */
-import { applyWeights, sideFit } from '../fit';
-import { KernelName } from '../fit';
+import { applyWeights, sideFit, KernelName } from '../fit';
 
 export interface FitLineSide {
   intercept: number;

@@ -26,11 +26,9 @@
  *   const r = validityTest(score, treated, bill, 60, { bandwidth: 8, kernel: 'triangular' });
  *   r.pvalue; r.worst; // { arm: 1, from: 410, to: 530, t: 2.7 }
  */
-import { boundaryWindow } from '../fit';
+import { boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
 import { intervalClass } from './intervalClass';
-import { KernelName } from '../fit';
-import { gathered } from '../fit';
 import { MultiplierName, bootstrapMaxima, selection } from './validityBootstrap';
 import { MomentSet, takeupOf, validityMoments } from './validityMoments';
 
