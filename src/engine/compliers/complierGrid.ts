@@ -22,7 +22,7 @@ export function complierGrid(score: ArrayLike<number>, outcome: ArrayLike<number
   const seen = new Set<number>();
   for (let t = 0; t < ys.length && seen.size <= COMPLIER_GRID_POINTS; t++) seen.add(ys[t]);
   if (seen.size <= COMPLIER_GRID_POINTS) return [...seen].sort((a, b) => a - b);
-  // Else the type-1 quantiles: order statistics found without sorting the window.
+  // Else the type-1 quantiles: order statistics found without sorting the window (numeric/orderStatistics.ts).
   const ranks = Array.from({ length: COMPLIER_GRID_POINTS }, (_, k) => Math.min(ys.length - 1, Math.ceil(((2 + 4 * k) / 100) * ys.length) - 1));
   const values = orderStatistics(ys, ranks);
   const out: number[] = [];

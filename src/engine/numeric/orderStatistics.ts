@@ -1,51 +1,49 @@
 /**
- * Several order statistics of an array at once, without sorting it: a
- * quickselect that recurses only into the parts holding a wanted rank
- * (three-way partition around a median-of-three pivot, so ties cost nothing).
- * O(n log k) for k ranks. Reorders `values` (pass a copy you own).
+ * Several order statistics of an array at once, without sorting it: one pass
+ * for the range, one counting the values into equal-width buckets (the bucket
+ * of a value is monotone in the value, so ranks fall into known buckets), one
+ * gathering the values of the buckets that hold a wanted rank, and a sort of
+ * those buckets alone. About three linear passes on spread-out data; a full
+ * sort at worst (every value in one bucket).
  *
  * @example orderStatistics(Float64Array.of(5, 1, 4, 2, 3), [0, 4]) // [1, 5]
  */
-export function orderStatistics(values: Float64Array, ranks: number[]): number[] {
-  const out = new Array<number>(ranks.length);
-  const wanted = ranks.map((k, j) => ({ k, j })).sort((a, b) => a.k - b.k);
-  for (const w of wanted) {
-    if (!(w.k >= 0 && w.k < values.length) || !Number.isInteger(w.k)) throw new RangeError(`rank ${w.k} outside 0…${values.length - 1}`);
+export function orderStatistics(values: ArrayLike<number>, ranks: number[]): number[] {
+  const n = values.length;
+  for (const k of ranks) if (!(k >= 0 && k < n) || !Number.isInteger(k)) throw new RangeError(`rank ${k} outside 0…${n - 1}`);
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const v = values[i];
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
   }
-  // Explicit stack of [lo, hi, first wanted, last wanted + 1].
-  const stack: number[][] = [[0, values.length - 1, 0, wanted.length]];
-  while (stack.length > 0) {
-    const [lo, hi, a, b] = stack.pop()!;
-    if (a >= b) continue;
-    if (hi - lo < 16) {
-      const part = values.subarray(lo, hi + 1).sort();
-      for (let q = a; q < b; q++) out[wanted[q].j] = part[wanted[q].k - lo];
-      continue;
+  if (!(hi > lo)) return ranks.map(() => lo);
+  const B = Math.max(1, Math.min(n, 1 << 16));
+  const scale = (B - 1) / (hi - lo);
+  const start = new Int32Array(B + 1);
+  for (let i = 0; i < n; i++) start[Math.floor((values[i] - lo) * scale) + 1]++;
+  for (let b = 0; b < B; b++) start[b + 1] += start[b];
+  // The bucket of each wanted rank: the last b with start[b] ≤ k.
+  const bucketOf = ranks.map((k) => {
+    let a = 0;
+    let z = B - 1;
+    while (a < z) {
+      const m = (a + z + 1) >> 1;
+      if (start[m] <= k) a = m;
+      else z = m - 1;
     }
-    const m = (lo + hi) >> 1;
-    const x = values[lo];
-    const y = values[m];
-    const z = values[hi];
-    const pivot = x < y ? (y < z ? y : x < z ? z : x) : x < z ? x : y < z ? z : y;
-    // values[lo..lt-1] < pivot, values[lt..gt] = pivot, values[gt+1..hi] > pivot.
-    let lt = lo;
-    let gt = hi;
-    let i = lo;
-    while (i <= gt) {
-      const v = values[i];
-      if (v < pivot) {
-        values[i++] = values[lt];
-        values[lt++] = v;
-      } else if (v > pivot) {
-        values[i] = values[gt];
-        values[gt--] = v;
-      } else i++;
-    }
-    let q = a;
-    while (q < b && wanted[q].k < lt) q++;
-    let r = q;
-    while (r < b && wanted[r].k <= gt) out[wanted[r++].j] = pivot;
-    stack.push([lo, lt - 1, a, q], [gt + 1, hi, r, b]);
+    return a;
+  });
+  // slot[b]: which gathered part bucket b goes to (−1: not wanted).
+  const slot = new Int32Array(B).fill(-1);
+  const parts: Float64Array[] = [];
+  for (const b of bucketOf) if (slot[b] < 0) slot[b] = parts.push(new Float64Array(start[b + 1] - start[b])) - 1;
+  const fill = new Int32Array(parts.length);
+  for (let i = 0; i < n; i++) {
+    const q = slot[Math.floor((values[i] - lo) * scale)];
+    if (q >= 0) parts[q][fill[q]++] = values[i];
   }
-  return out;
+  for (const part of parts) part.sort();
+  return ranks.map((k, j) => parts[slot[bucketOf[j]]][k - start[bucketOf[j]]]);
 }
