@@ -10,9 +10,10 @@ const quick = process.argv.includes('--quick');
 const runner = path.join(process.cwd(), 'bin', 'run-ts.cjs');
 const benches: Array<[string, string[]]> = [
   ['bench/checkBench.ts', []],
+  ['bench/tiesBench.ts', []],
   ['bench/validityBench.ts', []],
   ['bench/densityBench.ts', []],
-  ['bench/validityMonteCarlo.ts', [quick ? '200' : '1000']],
+  ['bench/validityMonteCarlo.ts', quick ? ['--quick'] : []],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],
   ['bench/validitySizeBinding.ts', [quick ? '200' : '2000']],
   ['bench/bandwidthConvergence.ts', [quick ? '50' : '400']],

@@ -38,8 +38,8 @@ export type {
   EstimateResult,
   MissingMasks,
   ResultBase,
+  ValidityEntryReport,
   ValidityOptions,
-  ValidityReport,
 } from './api';
 
 // The whole check and its steps.
@@ -52,6 +52,8 @@ export {
   runCheck,
   testBandwidth,
   verdictByBandwidth,
+  checkMultiples,
+  blameDonut,
 } from './check';
 export type {
   BalanceRow,
@@ -79,13 +81,13 @@ export type { BandwidthRule } from './bandwidth';
 export { KERNEL_NAMES, VARIANCE_NAMES } from './fit';
 export type { Estimate, KernelName, VarianceName } from './fit';
 export { MAX_DRAWS, MAX_GRID } from './validity';
-export type { MultiplierName, ValidityAtBandwidth } from './validity';
+export type { MultiplierName, ValidityAtBandwidth, ValidityReport, ValidityReportOutcome, ValidityResult } from './validity';
 
 // Method functions for the benchmarks and Monte Carlo studies.
 export { Random } from './numeric';
-export { bootstrapMaxima, resolveValidityOptions, selection, validityMomentSets, validityTest } from './validity';
+export { bootstrapMaxima, intervalClass, resolveValidityOptions, selection, validityMoments, validityMomentSets, validityReport, validityTest } from './validity';
 export { localPolynomialDensityTest, mccraryTest } from './density';
 export { permutationBalanceTest } from './covariates';
-export { bandwidthMse, chooseBandwidth } from './bandwidth';
-export { boundaryWindow, estimatesAtCutoff, jumpAt } from './fit';
+export { bandwidthMse, chooseBandwidth, widenForTies } from './bandwidth';
+export { boundaryWindow, estimatesAtCutoff, gathered, jumpAt, neighbourResiduals } from './fit';
 export { binnedMeans } from './plots';

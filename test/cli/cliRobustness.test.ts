@@ -217,16 +217,19 @@ describe('headers and CSV dialects', () => {
 
 describe('designs at the edges', () => {
   test('one row per side, and too few rows', () => {
-    expectRefused(run([write('tworows.csv', 'score,treated,y\n-1,0,1\n1,1,3\n'), ...opts()]), /too few units near the cutoff .*1 below, 1 above/);
+    expectRefused(run([write('tworows.csv', 'score,treated,y\n-1,0,1\n1,1,3\n'), ...opts()]), /too few units near the cutoff to choose a bandwidth: within [\d.]+ of it the score has 1 below and 1 above \(1 and 1 distinct scores\).*give a bandwidth/);
     expectRefused(run([write('six.csv', 'score,treated,y\n-1,0,1\n-0.5,1,2\n-0.2,0,1.5\n0.1,1,3\n0.4,0,2\n0.9,1,4\n'), ...opts()]), /at least 3 are needed/);
   });
 
   const sharp = (): string => write('sharp.csv', csv('score,treated,y', plain, rows(400, 1.01, -1)));
-  test('sharp design (typed bandwidth): take-up 1, effect = jump, the validity test says it has little power', () => {
+  test('sharp design (typed bandwidth): take-up 1, effect = jump, the validity test is not applicable', () => {
+    // Before issue 7 the test ran here with a power warning; METHODS §4 (arms that test nothing) now gives no p-value.
     const j = expectJson(run([sharp(), ...opts('--bandwidth', '0.5', '--json')]));
     expect(j.takeup.estimate).toBeCloseTo(1, 12);
     expect(j.outcomes[0].effect.estimate).toBeCloseTo(j.outcomes[0].jump.estimate, 12);
-    expect(j.outcomes[0].warnings.join(' ')).toMatch(/nearly sharp design the test has little power/);
+    expect(Object.keys(j.outcomes[0].validity).sort()).toEqual(['applicable', 'reason']);
+    expect(j.outcomes[0].validity.applicable).toBe(false);
+    expect(j.outcomes[0].validity.reason).toMatch(/the design is sharp in this window/);
   });
   // Bug left for the lead (src/engine/check/check.ts + bandwidthMse.ts): the validity test's bandwidth is the
   // mse of take-up, whose pilot b is 0 when take-up is constant on each side; the user sees
@@ -272,7 +275,7 @@ describe('designs at the edges', () => {
     const d = expectJson(run([ties(), ...opts('--json')]));
     expect(d.bandwidth.value).toBeGreaterThan(3);
     expect(d.warnings.join(' ')).toMatch(/distinct scores below the cutoff/);
-    expectRefused(run([ties(), ...opts('--bandwidth', '3')]), /too few distinct scores \(2\) for the bias correction's quadratic fit/);
+    expectRefused(run([ties(), ...opts('--bandwidth', '3')]), /holds only 2 distinct scores; the bias-corrected interval fits a curve and needs at least 3 — widen the bandwidth/);
     const j = expectJson(run([ties(), ...opts('--bandwidth', '4', '--json')]));
     expect(j.warnings.join(' ')).toMatch(/only 3 distinct scores below the cutoff/);
     expect(j.density.warnings.join(' ')).toMatch(/few distinct values/);

@@ -8,7 +8,9 @@ import * as os from 'os';
 import * as path from 'path';
 
 const root = path.resolve(__dirname, '..', '..');
-const store = path.join(root, 'test', 'fixtures', 'cli');
+// CUTLINE_SNAPSHOT_DIR and CUTLINE_BIN (a bundled cutline) let the same cases be run against another build, to compare.
+const store = process.env.CUTLINE_SNAPSHOT_DIR ?? path.join(root, 'test', 'fixtures', 'cli');
+const bin = process.env.CUTLINE_BIN ?? path.join(root, 'bin/cutline.cjs');
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cutline-snap-'));
 const writing = process.env.CUTLINE_SNAPSHOT === 'write';
 
@@ -59,7 +61,7 @@ const refusals: Array<string[]> = [
 ];
 
 function run(args: string[]): { code: number | null; out: string; err: string } {
-  const r = spawnSync(process.execPath, [path.join(root, 'bin/cutline.cjs'), 'check', ...args], { encoding: 'utf8', cwd: dir, timeout: 120000 });
+  const r = spawnSync(process.execPath, [bin, 'check', ...args], { encoding: 'utf8', cwd: dir, timeout: 120000 });
   return { code: r.status, out: r.stdout, err: r.stderr };
 }
 

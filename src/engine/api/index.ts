@@ -16,4 +16,4 @@ export type { BandwidthResult } from './selectBandwidth';
 export { takeupJump } from './takeupJump';
 export type { EstimateResult } from './takeupJump';
 export { validity } from './validity';
-export type { ValidityOptions, ValidityReport } from './validity';
+export type { ValidityEntryReport, ValidityOptions } from './validity';

@@ -5,7 +5,7 @@
  * to the last digit. `cells` (whole-number codes) runs it within the cells of
  * a discrete covariate.
  *
- * @example validity(score, treated, bill, 60).pvalue // 1 on the demo
+ * @example validity(score, treated, bill, 60).pvalue // the headline p-value
  */
 import { outcomeValidity, settle, testBandwidth, ValiditySummary } from '../check';
 import { checkColumns, Column } from '../data';
@@ -18,25 +18,27 @@ export interface ValidityOptions extends EstimateOptions {
   grid?: number;
   trim?: number;
   multiplier?: MultiplierName;
+  /** The trend guard (docs/methods.md §4.8; default true). */
+  trendGuard?: boolean;
   /** Multiples of the test bandwidth for the by-bandwidth table (default 0.5, 0.75, 1, 1.5, 2); [] for none. */
   sensitivity?: number[];
   /** A discrete covariate's code for every row: the test is run within its cells. */
   cells?: Column;
-  /** The cells' names, by code (for the worst interval's cell). */
+  /** The cells' names, by code (for the worst interval's cell), and the covariate's name. */
   cellLabels?: string[];
+  cellsName?: string;
 }
 
-export interface ValidityReport extends ValiditySummary, ResultBase {
-  test_bandwidth_rule: 'undersmoothed mse' | 'typed';
-}
+/** The check's validity block for this outcome (both versions, by-bandwidth table) with the fields every result carries. */
+export type ValidityEntryReport = ValiditySummary & ResultBase & { test_bandwidth_rule: 'undersmoothed mse' | 'typed' };
 
-export function validity(score: Column, treated: Column, outcome: Column, cutoff: number, opts: ValidityOptions = {}): ValidityReport {
+export function validity(score: Column, treated: Column, outcome: Column, cutoff: number, opts: ValidityOptions = {}): ValidityEntryReport {
   const input = columnsInput({ score, treated, outcome }, opts);
   if (opts.cells !== undefined) {
     const codes = checkColumns({ score: { values: input.score.values }, cells: { values: opts.cells, kind: 'code' } }).cells;
     let n = 0;
     for (let i = 0; i < codes.length; i++) if (codes[i] + 1 > n) n = codes[i] + 1;
-    input.within = { name: 'cells', codes: Int32Array.from(codes), labels: opts.cellLabels ?? Array.from({ length: n }, (_, k) => String(k)) };
+    input.within = { name: opts.cellsName ?? 'cells', codes: Int32Array.from(codes), labels: opts.cellLabels ?? Array.from({ length: n }, (_, k) => String(k)) };
   }
   const s = settle(input, { ...opts, cutoff });
   const tk = s.takeupRows;
@@ -46,7 +48,8 @@ export function validity(score: Column, treated: Column, outcome: Column, cutoff
   return {
     ...v.summary,
     test_bandwidth_rule: t.rule,
-    counts: v.summary.window,
+    bandwidth: t.value,
+    counts: v.summary.applicable ? v.summary.observed.counts : v.summary.counts,
     rows: { used: p.rows.length, dropped: p.dropped },
     warnings: merged(s.warnings, t.warnings, v.warnings),
   };

@@ -21,11 +21,11 @@ import { CutlineError } from '../errors';
 import { completeRows } from '../data';
 import { Estimate, estimatesAtCutoff, KernelName, VarianceName } from '../fit';
 import { holmAdjust } from '../numeric';
-import { MultiplierName, ValidityAtBandwidth } from '../validity';
+import { MultiplierName, ValidityReportOutcome } from '../validity';
 import { balanceSection, BalanceRow, binnedSeries, BinnedSeries, densitySection, DensitySection } from './designChecks';
 import { complierSummary, outcomeEstimates, outcomeValidity } from './outcomeSections';
 import { CheckInput, keep, settle, SettingOptions } from './setting';
-import { testBandwidth } from './steps';
+import { checkMultiples, sensitivityMultiples, testBandwidth } from './steps';
 
 export type { CheckInput, CodeColumn, DataColumn } from './setting';
 
@@ -36,6 +36,8 @@ export interface CheckOptions extends SettingOptions {
   grid?: number;
   trim?: number;
   multiplier?: MultiplierName;
+  /** The validity test's trend guard (default true); false reports the published test alone. */
+  trendGuard?: boolean;
   /** Multiples of the test bandwidth for the sensitivity table; [] for the test bandwidth alone. */
   sensitivity?: number[];
   /** McCrary's bin width and bandwidth (rules of thumb when absent). */
@@ -45,23 +47,12 @@ export interface CheckOptions extends SettingOptions {
   bins?: boolean;
 }
 
-export interface ValiditySummary {
-  statistic: number;
-  pvalue: number;
-  /** Holm-adjusted across the outcomes. */
-  pvalue_holm: number;
-  rejects: boolean;
-  critical_value: number;
-  intervals: number;
-  draws: number;
-  seed: number;
-  bandwidth: number;
-  window: { below: number; above: number };
-  /** `cell` is the cell's code (order of first appearance); `cell_label` its value in the data. */
-  worst: { arm: 0 | 1; from: number; to: number; t: number; cell?: number; cell_label?: string };
-  by_bandwidth: ValidityAtBandwidth[];
-  within?: string;
-}
+/**
+ * The validity report (validity/validityReport.ts) as the check gives it:
+ * `pvalue_holm` adjusts the headline p-values across the outcomes whose test
+ * applies; `within` names the covariate whose cells the test ran within.
+ */
+export type ValiditySummary = ValidityReportOutcome & { pvalue_holm?: number; within?: string };
 
 export interface ComplierSummary {
   mean_treated: number;
@@ -129,10 +120,9 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
 
   const testH = testBandwidth(tk.score, tk.treated, cutoff, kernel, h, options.bandwidth);
   warnings.push(...testH.warnings);
+  if (options.sensitivity) checkMultiples(sensitivityMultiples(options.sensitivity), testH.value, tk.score);
   if (variance === 'cluster') {
-    warnings.push(
-      'the outcome–treatment test treats units as independent (hc0 variances and unit-level multipliers); the cluster variance applies to the estimates only',
-    );
+    warnings.push('the outcome–treatment test treats units as independent (it ignores the clusters); the cluster variance applies to the estimates only');
   }
 
   const outcomes = input.outcomes.map((col, j): OutcomeResult => {
@@ -159,8 +149,10 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
       warnings: own,
     };
   });
-  const holm = holmAdjust(outcomes.map((o) => o.validity.pvalue));
-  outcomes.forEach((o, j) => {
+  // Holm across the outcomes whose test applies (a sharp design has no p-value).
+  const tested = outcomes.filter((o) => o.validity.applicable);
+  const holm = holmAdjust(tested.map((o) => (o.validity.applicable ? o.validity.pvalue : NaN)));
+  tested.forEach((o, j) => {
     o.validity.pvalue_holm = holm[j];
   });
 

@@ -1,7 +1,11 @@
 /**
  * The checks of the design beside the outcome–treatment test (docs/methods.md
  * §6–§8), assembled for a whole check: the score's density (both tests, the
- * local polynomial one the headline when it can be computed), each
+ * local polynomial one the headline when it can be computed and its window is
+ * not mostly mass points; McCrary's binned test only when the local polynomial
+ * one cannot be computed and McCrary's own window is not mostly mass points;
+ * otherwise no headline and a plain statement that no reliable density test is
+ * available, with the reason), each
  * covariate's continuity (local linear jump, Canay–Kamat permutation test,
  * Holm across covariates) and the binned means for the plots.
  *
@@ -18,15 +22,20 @@ import { permutationBalanceTest } from '../covariates';
 import { localPolynomialDensityTest, LocalPolynomialDensityResult, mccraryTest, McCraryResult } from '../density';
 import { CutlineError } from '../errors';
 import { holmAdjust } from '../numeric';
+import { distinctScoreWarning, windowDistinctScores } from '../data';
 
 export const DENSITY_CAUTION =
   'A jump in the density of the score is evidence of sorting around the cutoff, not proof of an invalid design (sorting unrelated to outcomes leaves the estimand intact); a smooth density is no proof of validity.';
 
 export interface DensitySection {
-  method: 'local_polynomial' | 'mccrary';
-  log_ratio: number;
-  se: number;
-  pvalue: number;
+  /** The headline test; 'none' when no reliable density test is available (see `unreliable`). */
+  method: 'local_polynomial' | 'mccrary' | 'none';
+  /** The headline's numbers (absent when `method` is 'none'). */
+  log_ratio?: number;
+  se?: number;
+  pvalue?: number;
+  /** Why no density test is reliable here (mass points), when `method` is 'none'. */
+  unreliable?: string;
   mccrary?: Pick<McCraryResult, 'log_ratio' | 'se' | 'pvalue' | 'bin' | 'bandwidth' | 'density_above' | 'density_below'>;
   local_polynomial?: Pick<
     LocalPolynomialDensityResult,
@@ -68,13 +77,21 @@ export function densitySection(
   for (const w of [...(m?.warnings ?? []), ...(lp?.warnings ?? [])]) {
     if (!warnings.includes(w) && !(few(w) && warnings.some(few))) warnings.push(w);
   }
-  const head = lp ?? m;
-  if (!head) return undefined;
+  if (!lp && !m) return undefined;
+  // Each test judged on its own window (data/repeatedScores.ts): a heaped or discrete score there makes it unreliable.
+  const massy = (h: number): string | null => distinctScoreWarning(windowDistinctScores(score, cutoff, h), 'the density tests');
+  const lpMass = lp ? massy(lp.bandwidth) : null;
+  const mMass = m ? massy(m.bandwidth) : null;
+  const head = lp && !lpMass ? lp : !lp && m && !mMass ? m : undefined;
+  const method: DensitySection['method'] = head === undefined ? 'none' : head === lp ? 'local_polynomial' : 'mccrary';
+  const unreliable =
+    head === undefined
+      ? `no reliable density test is available: ${lpMass ?? mMass}` +
+        (lp ? '' : '; the local polynomial test could not be computed, and McCrary\'s binned test is not used in its place with mass points')
+      : undefined;
   return {
-    method: lp ? 'local_polynomial' : 'mccrary',
-    log_ratio: head.log_ratio,
-    se: head.se,
-    pvalue: head.pvalue,
+    method,
+    ...(head ? { log_ratio: head.log_ratio, se: head.se, pvalue: head.pvalue } : { unreliable }),
     mccrary: m && {
       log_ratio: m.log_ratio,
       se: m.se,
@@ -133,6 +150,10 @@ export function balanceSection(
 ): BalanceRow[] {
   const rows: BalanceRow[] = covariates.map((c) => {
     const row: BalanceRow = { name: c.name, rows: { used: c.score.length, dropped: c.dropped }, warnings: [] };
+    if (c.values.length === 0) {
+      row.warnings.push(`${c.name} is missing on every row that has a score: there is nothing to test`);
+      return row;
+    }
     if (isConstant(c.values)) {
       row.warnings.push(`${c.name} is constant on the rows used: there is nothing to test`);
       return row;

@@ -1,15 +1,15 @@
 /**
  * The parts of a check that belong to one outcome — its estimates, its
- * validity test with the by-bandwidth table, the implied complier
+ * validity report (both versions, the by-bandwidth table), the implied complier
  * distributions — computed from a settled check (setting.ts), so that
  * `runCheck` and the entry points for one quantity share them.
  */
 import { complierCdf, complierDensity, complierMeans, complierGrid } from '../compliers';
 import { CutoffEstimates, estimatesAtCutoff, KernelName } from '../fit';
-import { MultiplierName, validityTest } from '../validity';
+import { MultiplierName, validityReport } from '../validity';
 import type { ComplierSummary, ValiditySummary } from './check';
 import { CheckInput, DataColumn, Prepared, Setting } from './setting';
-import { complierWarnings, verdictByBandwidth } from './steps';
+import { complierWarnings, sensitivityMultiples } from './steps';
 
 const sameRows = (a: Int32Array, b: Int32Array): boolean => a.length === b.length && a.every((v, i) => v === b[i]);
 
@@ -38,6 +38,8 @@ export interface ValidityRunOptions {
   grid?: number;
   trim?: number;
   multiplier?: MultiplierName;
+  /** The trend guard (docs/methods.md §4.8; default true). */
+  trendGuard?: boolean;
   /** Multiples of the test bandwidth for the by-bandwidth table; [] for the test bandwidth alone. */
   sensitivity?: number[];
 }
@@ -45,7 +47,7 @@ export interface ValidityRunOptions {
 /**
  * The outcome–treatment test of one outcome at the test bandwidth, within the
  * cells of `input.within` when given, with its by-bandwidth table and
- * warnings. `pvalue_holm` is the p-value itself (a check adjusts it across outcomes).
+ * warnings (a check adds `pvalue_holm` across its outcomes).
  */
 export function outcomeValidity(
   s: Setting,
@@ -58,9 +60,9 @@ export function outcomeValidity(
   const warnings: string[] = [];
   const vp = input.within ? s.rowsOf(col, [], true) : p;
   if (vp.rows.length < p.rows.length) {
-    warnings.push(`${p.rows.length - vp.rows.length} rows with a missing ${input.within!.name} were left out of the validity test within its cells (listwise)`);
+    warnings.push(`${p.rows.length - vp.rows.length} rows with a missing ${input.within!.name} were left out of the validity test within its cells`);
   }
-  const vopts = {
+  const v = validityReport(vp.score, vp.treated, vp.outcome!, s.cutoff, {
     kernel: s.kernel,
     sign: s.sign,
     draws: options.draws,
@@ -68,27 +70,14 @@ export function outcomeValidity(
     grid: options.grid,
     trim: options.trim,
     multiplier: options.multiplier,
+    trendGuard: options.trendGuard,
+    bandwidth: testH,
+    multiples: sensitivityMultiples(options.sensitivity),
     cells: vp.cells,
     cellLabels: input.within?.labels,
-  };
-  const v = validityTest(vp.score, vp.treated, vp.outcome!, s.cutoff, { ...vopts, bandwidth: testH });
-  const by = verdictByBandwidth(vp.score, vp.treated, vp.outcome!, s.cutoff, testH, options.sensitivity, vopts, v);
-  for (const w of [...v.warnings, ...by.warnings]) if (!warnings.includes(w)) warnings.push(w);
-  const summary: ValiditySummary = {
-    statistic: v.statistic,
-    pvalue: v.pvalue,
-    pvalue_holm: v.pvalue,
-    rejects: v.pvalue <= 0.05,
-    critical_value: v.critical_value,
-    intervals: v.intervals,
-    draws: v.draws,
-    seed: v.seed,
-    bandwidth: testH,
-    window: v.counts,
-    worst: v.worst.cell !== undefined && input.within ? { ...v.worst, cell_label: input.within.labels[v.worst.cell] } : v.worst,
-    by_bandwidth: by.byBandwidth,
-    within: input.within?.name,
-  };
+  });
+  for (const w of v.warnings) if (!warnings.includes(w)) warnings.push(w);
+  const summary: ValiditySummary = input.within ? { ...v, within: input.within.name } : v;
   return { summary, warnings };
 }
 

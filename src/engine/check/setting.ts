@@ -11,7 +11,9 @@ import { BandwidthChoice, BandwidthRule, chooseBandwidth } from '../bandwidth';
 import { checkColumns, checkCutoff, IndexedScore, indexScores, compact, completeRows } from '../data';
 import { CutlineError } from '../errors';
 import { Window, KernelName, VarianceName } from '../fit';
-import { Donut, donutMask, Eligible, eligibleSide, estimatesBandwidth, requireSides, requireVaries } from './steps';
+import { blameDonut, Donut, donutMask, Eligible, eligibleSide, estimatesBandwidth, requireSides, requireVaries } from './steps';
+import { clusterWarnings } from './designWarnings';
+import { emptySideMessage, noRowMessage } from './emptySide';
 
 export interface DataColumn {
   name: string;
@@ -141,7 +143,7 @@ export function settle(input: CheckInput, options: SettingOptions): Setting {
     const all = [input.score.missing, input.treated.missing, outcome?.missing, input.cluster?.missing, donut?.mask, ...masks];
     if (withCells) all.push(input.within?.missing);
     const { rows, dropped } = completeRows(n, all);
-    if (rows.length === 0) throw new CutlineError('no row has every column the check needs; nothing to estimate', { code: 'too-few' });
+    if (rows.length === 0) throw new CutlineError(noRowMessage(input, outcome, withCells, donut?.mask), { code: 'too-few' });
     return {
       rows,
       dropped,
@@ -156,21 +158,36 @@ export function settle(input: CheckInput, options: SettingOptions): Setting {
   const prepared = input.outcomes.map((col) => rowsOf(col, []));
   const takeupRows = rowsOf(undefined, []);
   const first = prepared[0] ?? takeupRows;
-  requireSides(first.score, cutoff);
+  requireSides(first.score, cutoff, (below) => emptySideMessage(input, input.outcomes[0], cutoff, below, donut?.mask));
   requireVaries(first.treated, 'treated', `column ${JSON.stringify(input.treated.name)}`, 'take-up cannot jump');
   input.outcomes.forEach((col, j) => {
     requireVaries(prepared[j].outcome!, 'outcome', `column ${JSON.stringify(col.name)}`, 'there is no jump to estimate or test');
   });
   const rule = { rule: options.rule, kernel, typed: options.bandwidth };
-  const bandwidth =
-    prepared.length > 0
-      ? estimatesBandwidth(first.score, first.treated, first.outcome!, cutoff, rule)
-      : chooseBandwidth(takeupRows.score, takeupRows.treated, cutoff, rule);
+  const choose = (p: Prepared): BandwidthChoice =>
+    p.outcome ? estimatesBandwidth(p.score, p.treated, p.outcome, cutoff, rule) : chooseBandwidth(p.score, p.treated, cutoff, rule);
+  const bandwidth = blameDonut(
+    options.donut,
+    () => choose(first),
+    () => {
+      const all = completeRows(n, [input.score.missing, input.treated.missing, input.outcomes[0]?.missing, input.cluster?.missing]);
+      choose({
+        rows: all.rows,
+        dropped: all.dropped,
+        score: indexScores(keep(input.score.values, all.rows, all.dropped)),
+        treated: keep(input.treated.values, all.rows, all.dropped),
+        outcome: input.outcomes[0] && keep(input.outcomes[0].values, all.rows, all.dropped),
+      });
+    },
+  );
   const warnings = [...bandwidth.warnings];
   // Take-up on its own rows; its sign decides the eligible side.
-  requireSides(takeupRows.score, cutoff);
+  requireSides(takeupRows.score, cutoff, (below) => emptySideMessage(input, undefined, cutoff, below, donut?.mask));
   const side = eligibleSide(takeupRows.score, takeupRows.treated, cutoff, bandwidth.value, kernel, options.eligible);
   warnings.push(...side.warnings);
+  if (variance === 'cluster' && takeupRows.clusters && input.cluster) {
+    warnings.push(...clusterWarnings(takeupRows.clusters, side.window.below.index, side.window.above.index, input.cluster.labels, input.cluster.name));
+  }
   return {
     cutoff,
     kernel,

@@ -10,7 +10,7 @@ import { CutlineError } from '../errors';
 import { applyWeights, boundaryWindow, Window, KernelName } from '../fit';
 import { sortedOrder } from '../data';
 import { formatNumber } from '../numeric';
-import { MultiplierName, validityByBandwidth, ValidityAtBandwidth, ValidityResult, verdictWarnings } from '../validity';
+import { MultiplierName, validityReport, ValidityAtBandwidth } from '../validity';
 
 export type Eligible = 'above' | 'below';
 
@@ -91,7 +91,7 @@ export function testBandwidth(
     if (!(e instanceof CutlineError)) throw e;
     value = h * shrink;
     warnings.push(
-      `the mse bandwidth of the take-up jump cannot be computed (${e.message}); the validity test uses the estimates' bandwidth × n^(−1/20) = ${formatNumber(value)}`,
+      `the validity test's usual bandwidth (from the take-up jump) cannot be computed (${e.message}); it uses the estimates' bandwidth, shrunk slightly for the number of rows, ${formatNumber(value)}`,
     );
   }
   const w = widenForTies(score, cutoff, value, 2);
@@ -111,14 +111,21 @@ export interface ValidityTestOptions {
   grid?: number;
   trim?: number;
   multiplier?: MultiplierName;
+  /** The trend guard (docs/methods.md §4.8; default true). */
+  trendGuard?: boolean;
   cells?: Int32Array;
   cellLabels?: string[];
 }
 
+/** The multiples of the sensitivity table besides 1 (the default table when none are given). */
+export function sensitivityMultiples(sensitivity?: number[]): number[] {
+  return (sensitivity ?? DEFAULT_SENSITIVITY).filter((m) => m !== 1);
+}
+
 /**
- * The verdict at multiples of the test bandwidth beside the headline test `at1`
- * (same seed: common multipliers), sorted by multiple, with the warnings about
- * a verdict that turns with the bandwidth.
+ * The verdict at multiples of the test bandwidth (same seed: common
+ * multipliers), sorted by multiple, with the warnings the report gives — the
+ * by-bandwidth table of the validity report (validityReport.ts) on its own.
  */
 export function verdictByBandwidth(
   score: ArrayLike<number>,
@@ -128,20 +135,53 @@ export function verdictByBandwidth(
   testH: number,
   sensitivity: number[] | undefined,
   opts: ValidityTestOptions,
-  at1: ValidityResult,
 ): { byBandwidth: ValidityAtBandwidth[]; warnings: string[] } {
-  const multiples = (sensitivity ?? DEFAULT_SENSITIVITY).filter((m) => m !== 1);
-  const others = validityByBandwidth(score, treated, outcome, cutoff, testH, multiples, opts);
-  const one: ValidityAtBandwidth = {
-    multiple: 1,
-    bandwidth: testH,
-    statistic: at1.statistic,
-    pvalue: at1.pvalue,
-    critical_value: at1.critical_value,
-    rejects: at1.pvalue <= 0.05,
-  };
-  const byBandwidth = multiples.length === 0 ? [one] : [...others, one].sort((a, b) => a.multiple - b.multiple);
-  return { byBandwidth, warnings: verdictWarnings(byBandwidth) };
+  const v = validityReport(score, treated, outcome, cutoff, { ...opts, bandwidth: testH, multiples: sensitivityMultiples(sensitivity) });
+  return { byBandwidth: v.by_bandwidth ?? [], warnings: v.warnings };
+}
+
+/** Widest window, in multiples of the larger of the score's range and the test bandwidth, that the sensitivity table may ask for. */
+export const MAX_SPREAD = 10;
+
+/**
+ * A sensitivity multiple whose window spans more than MAX_SPREAD times the
+ * scores' range adds nothing (every unit is in the window long before) and
+ * says the multiple was a slip: refused, naming the largest sensible one.
+ */
+export function checkMultiples(multiples: number[], testH: number, score: ArrayLike<number>): void {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < score.length; i++) {
+    if (score[i] < lo) lo = score[i];
+    if (score[i] > hi) hi = score[i];
+  }
+  const limit = MAX_SPREAD * Math.max(hi - lo, testH);
+  const bad = multiples.find((m) => m * testH > limit);
+  if (bad !== undefined) {
+    throw new CutlineError(
+      `the sensitivity multiple ${bad} makes the validity test's bandwidth ${formatNumber(bad * testH)}, more than ${MAX_SPREAD} times the range of the scores (${formatNumber(lo)} to ${formatNumber(hi)}); ` +
+        `choose multiples up to ${formatNumber(limit / testH)}`,
+      { code: 'option' },
+    );
+  }
+}
+
+/** A bandwidth rule that fails with the donut cut out but not without it: the donut is named as the cause. */
+export function blameDonut<T>(donut: number | undefined, f: () => T, withoutDonut: () => void): T {
+  try {
+    return f();
+  } catch (e) {
+    if (!(e instanceof CutlineError) || donut === undefined) throw e;
+    try {
+      withoutDonut();
+    } catch {
+      throw e;
+    }
+    throw new CutlineError(
+      `the donut (radius ${donut}) leaves too few units or distinct scores near the cutoff for the bandwidth rule (it works without the donut); choose a smaller donut, or give a bandwidth`,
+      { code: 'too-few' },
+    );
+  }
 }
 
 /** A warning for each arm whose implied complier distribution falls somewhere. */
@@ -195,15 +235,20 @@ export function donutMask(score: ArrayLike<number>, cutoff: number, r?: number, 
 }
 
 /** The score must vary and have units on both sides of the cutoff (read off the sorted order every window uses anyway). */
-export function requireSides(score: ArrayLike<number>, cutoff: number): void {
+export function requireSides(score: ArrayLike<number>, cutoff: number, explain?: (below: boolean) => string | undefined): void {
   const order = sortedOrder(score);
   const lo = score[order[0]];
   const hi = score[order[order.length - 1]];
   if (lo === hi) {
     throw new CutlineError(`the score is constant (every used row is ${lo}); there is no discontinuity to study`, { code: 'constant', argument: 'score' });
   }
-  if (!(lo < cutoff)) throw new CutlineError(`no unit has a score below the cutoff ${cutoff}`, { code: 'empty-side', argument: 'cutoff' });
-  if (!(hi >= cutoff)) throw new CutlineError(`no unit has a score at or above the cutoff ${cutoff}`, { code: 'empty-side', argument: 'cutoff' });
+  // Missing values in other columns can empty a side the score itself fills: then they are at fault, not the cutoff.
+  for (const below of [true, false]) {
+    if (below ? lo < cutoff : hi >= cutoff) continue;
+    const why = explain?.(below);
+    if (why !== undefined) throw new CutlineError(why, { code: 'empty-side' });
+    throw new CutlineError(`no unit has a score ${below ? 'below' : 'at or above'} the cutoff ${cutoff}`, { code: 'empty-side', argument: 'cutoff' });
+  }
 }
 
 /** A column that must vary on the rows used (`what` names it, `why` says what fails without variation). */

@@ -223,8 +223,8 @@ function fitPositions(
   if (withQuadratic) {
     if (distinct < 3 || n < 4) {
       throw new CutlineError(
-        `the window (bandwidth ${formatNumber(h, 6)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) ` +
-          `for the bias correction's quadratic fit — widen the bandwidth`,
+        `the window (bandwidth ${formatNumber(h, 6)}) ${sideName(above)} the cutoff holds only ${distinct} distinct score${distinct === 1 ? '' : 's'}; ` +
+          `the bias-corrected interval fits a curve and needs at least 3 — widen the bandwidth`,
       );
     }
     const [q0, q1, q2] = polyWeights(x, k, h, 2, above);
@@ -258,7 +258,7 @@ export function curvatureWeights(
   const { x, k, distinct } = coordinates(score, cutoff, b, kernel, index);
   if (n < 4 || distinct < 3) {
     throw new CutlineError(
-      `the curvature pilot (bandwidth ${formatNumber(b, 6)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) for a quadratic fit — type a bandwidth instead`,
+      `the score takes only ${distinct} distinct value${distinct === 1 ? '' : 's'} within ${formatNumber(b, 6)} ${sideName(above)} the cutoff, too few for the bandwidth rule to measure the data's curvature (it needs 3); give a bandwidth instead`,
     );
   }
   return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2], memo: sideMemo(orderView(score, index)) };
