@@ -50,9 +50,10 @@ describe('entry points give the check’s numbers to the last digit (demo)', () 
 
   test('validity: statistic, p-value, worst interval and the by-bandwidth table', () => {
     const v = validity(score, treated, bill.values, DEMO_CUTOFF, { draws: 199, sensitivity: [0.5, 1, 2], missing: missing(bill.missing) });
-    const { pvalue_holm: _h, ...o } = check.outcomes[0].validity;
-    const { test_bandwidth_rule: _r, bandwidth, counts: _c, rows: _rows, warnings: _w, ...rest } = v;
+    const { pvalue_holm: _h, warnings: reportWarnings, ...o } = check.outcomes[0].validity;
+    const { test_bandwidth_rule: _r, bandwidth, counts: _c, rows: _rows, warnings, ...rest } = v;
     expect(rest).toEqual(o); // both versions, worst intervals, by-bandwidth table
+    expect(warnings).toEqual(expect.arrayContaining(reportWarnings));
     expect(o.applicable).toBe(true);
     expect(bandwidth).toBe(check.test_bandwidth.value);
   });
@@ -248,8 +249,10 @@ test('validity within cells: the same as the check with a discrete covariate', (
     cellsName: 'household_size',
     missing: { score: d.score.missing, treated: d.treated.missing, outcome: d.outcomes[0].missing },
   });
-  const { pvalue_holm: _h, ...o } = c.outcomes[0].validity;
-  const { test_bandwidth_rule: _r, bandwidth: _b, counts: _c, rows: _rows, warnings: _w, ...rest } = v;
+  const { pvalue_holm: _h, warnings: reportWarnings, ...o } = c.outcomes[0].validity;
+  const { test_bandwidth_rule: _r, bandwidth: _b, counts: _c, rows: _rows, warnings, ...rest } = v;
   expect(rest).toEqual(o);
+  expect(warnings).toEqual(expect.arrayContaining(reportWarnings));
+  expect(reportWarnings.length).toBeGreaterThan(0);
   expect(o.within).toBe('household_size');
 });
