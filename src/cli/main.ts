@@ -3,13 +3,9 @@
  * (DESIGN.md). Exit status 0 on success, 2 for bad input (one line on
  * standard error saying what and where), 1 for anything else.
  */
-import { BANDWIDTH_RULES } from '../engine/bandwidth/bandwidth';
-import { CheckInput, runCheck } from '../engine/check/check';
-import { CutlineError } from '../engine/errors';
-import { KERNEL_NAMES } from '../engine/fit/kernels';
-import { VARIANCE_NAMES } from '../engine/fit/residuals';
-import { MAX_DRAWS, MAX_GRID } from '../engine/validity/validityTest';
+import { BANDWIDTH_RULES, CheckInput, CutlineError, KERNEL_NAMES, MAX_DRAWS, MAX_GRID, runCheck, VARIANCE_NAMES } from '../engine';
 import { labelColumn, numericColumn } from '../input/columns';
+import { errorLine } from './errorLine';
 import { choiceOption, numberOption, one, parseArgs, ParsedArgs, required } from './args';
 import { toJson } from './json';
 import { readable } from './readable';
@@ -18,7 +14,7 @@ import { withFlags } from './flagHints';
 
 const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
-  [--variance nn|hc0|hc1|cluster] [--cluster COL] [--covariate COL …]
+  [--variance neighbours|hc0|hc1|cluster] [--cluster COL] [--covariate COL …]
   [--draws N] [--seed N] [--grid N] [--trim NUM] [--multiplier normal|rademacher] [--trend-guard on|off]
   [--sensitivity 0.5,0.75,1,1.5,2|off] [--within COL] [--density-bin NUM] [--density-bandwidth NUM]
   [--donut NUM] [--json [--bins]]
@@ -168,7 +164,7 @@ async function main(argv: string[]): Promise<number> {
     return 0;
   } catch (e) {
     if (e instanceof CutlineError) {
-      process.stderr.write(`cutline: ${withFlags(e.message).replace(/\s*\n\s*/g, ' ')}\n`);
+      process.stderr.write(`cutline: ${withFlags(errorLine(e))}\n`);
       return 2;
     }
     process.stderr.write(`cutline: internal error: ${e instanceof Error ? e.message : String(e)}\n`);

@@ -44,7 +44,7 @@ export async function runGuidedCheck(
   progress(0.02, 'Checking the data: take-up, effects, the outcome–treatment test…');
   await breathe();
   stop();
-  const options: CheckOptions = ready.eligible === 'detect' ? ready.options : ({ ...ready.options, eligible: ready.eligible } as CheckOptions);
+  const options: CheckOptions = ready.eligible === 'detect' ? ready.options : { ...ready.options, eligible: ready.eligible };
   const result = runCheck(ready.input, options);
   if (!ready.density) delete result.density;
   progress(SHARE.check, 'Laying out the summary sheet…');
@@ -54,7 +54,7 @@ export async function runGuidedCheck(
   const model = buildSummary(result, {
     source: ready.source,
     data: ready.data,
-    options: ready.options,
+    options,
     takenSheetNames: taken,
     names: ready.names,
   });
@@ -67,6 +67,8 @@ export async function runGuidedCheck(
   );
   progress(SHARE.check + SHARE.write, 'Recalculating the sheet’s formulas…');
   await port.settle((done, total, what) => progress(SHARE.check + SHARE.write + (SHARE.settle * done) / Math.max(1, total), what), cancelled);
+  // A Cancel pressed while the workbook was busy is heard here.
+  await breathe();
   if (cancelled()) {
     // Cancelled while the sheet recalculated: take the new sheet away, so that nothing was written.
     await port.deleteSheet(plan.sheet);

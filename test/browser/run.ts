@@ -17,7 +17,7 @@ import * as http from 'node:http';
 import * as path from 'node:path';
 import { buildSync } from 'esbuild';
 import { chromium, Page } from 'playwright-core';
-import { complierCdf } from '../../src/engine/compliers/complierDistributions';
+import { complierCdfAt } from '../../src/engine';
 import { liveExpectations } from '../../src/report/sheetPlan';
 import { demoInput, demoSummary } from '../helpers/demoSummary';
 
@@ -167,14 +167,12 @@ async function compareCompliers(page: Page, sheet: string, plan: ReturnType<type
       `A${place.row + 1}:C${place.row + place.grid!}`,
     ])) as unknown[][];
     const at = values.map((r) => r[0] as number);
-    const keep: number[] = [];
-    for (let i = 0; i < input.score.values.length; i++) if (!input.score.missing?.[i] && !outcome.missing?.[i] && !input.treated.missing?.[i]) keep.push(i);
-    const pick = (v: Float64Array): Float64Array => Float64Array.from(keep, (i) => v[i]);
     for (const [arm, col] of [[1, 1], [0, 2]] as const) {
-      const curve = complierCdf(pick(input.score.values), pick(input.treated.values), pick(outcome.values), cutoff, at, arm, { bandwidth: bw, kernel: 'triangular' } as never) as unknown as
-        | number[]
-        | { values?: number[]; cdf?: number[] };
-      const ys = Array.isArray(curve) ? curve : (curve.values ?? curve.cdf)!;
+      const ys = complierCdfAt(input.score.values, input.treated.values, outcome.values, cutoff, at, arm, {
+        bandwidth: bw,
+        eligible: 'above',
+        missing: { score: input.score.missing, treated: input.treated.missing, outcome: outcome.missing },
+      }).values;
       values.forEach((r, j) => {
         if (!sameValue(r[col], ys[j])) bad.push(`${name} arm ${arm} at ${at[j]}: sheet ${JSON.stringify(r[col])}, engine ${ys[j]}`);
       });
@@ -356,7 +354,8 @@ async function main(): Promise<void> {
 
     await step(`a new cutoff typed into the settings cell recalculates every result to the engine’s numbers at ${NEW_CUTOFF}`, async () => {
       await page.evaluate(([s, a, v]) => window.cutlineTest.workbook!.type(s as string, a as string, v as number), [sheet, at60.plan.cutoffCell, NEW_CUTOFF]);
-      const at62 = demoSummary(NEW_CUTOFF, ['Data']);
+      // The engine with the sheet's settings: the eligible side as written (above).
+      const at62 = demoSummary(NEW_CUTOFF, ['Data'], 'above');
       const expected = liveExpectations(at62.model, at60.model, at60.plan.cells, at60.plan.plots);
       const bad = await compareSheet(page, sheet, expected);
       const html = await page.evaluate((s) => window.cutlineTest.sheetHtml(s), sheet);

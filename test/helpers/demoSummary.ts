@@ -5,8 +5,8 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { runCheck } from '../../src/engine/check/check';
-import type { CheckInput, CheckOptions } from '../../src/engine/check/check';
+import { runCheck } from '../../src/engine';
+import type { CheckInput, CheckOptions } from '../../src/engine';
 import { labelColumn, numericColumn } from '../../src/input/columns';
 import { parseCsv } from '../../src/input/csv';
 import { planSheet } from '../../src/report/sheetPlan';
@@ -39,16 +39,16 @@ export function demoInput(sheet = 'Data'): { input: CheckInput; data: DataRanges
 }
 
 /** The pane's options for the demo at a cutoff (the pane's defaults: rule mse, 999 draws, seed 1, bins for the charts). */
-export const demoOptions = (cutoff: number): CheckOptions => ({ cutoff, bins: true, draws: 999, seed: 1, rule: 'mse' });
+export const demoOptions = (cutoff: number, eligible?: 'above' | 'below'): CheckOptions => ({ cutoff, bins: true, draws: 999, seed: 1, rule: 'mse', ...(eligible ? { eligible } : {}) });
 
-/** The demo's summary model and live sheet plan at a cutoff. */
-export function demoSummary(cutoff = 60, takenSheetNames: string[] = ['Data']) {
+/** The demo's summary model and live sheet plan at a cutoff (the eligible side detected unless given). */
+export function demoSummary(cutoff = 60, takenSheetNames: string[] = ['Data'], eligible?: 'above' | 'below') {
   const { input, data } = demoInput();
-  const result = runCheck(input, demoOptions(cutoff));
+  const result = runCheck(input, demoOptions(cutoff, eligible));
   const model = buildSummary(result, {
     source: 'Data!A1:H6001',
     data,
-    options: demoOptions(cutoff),
+    options: demoOptions(cutoff, eligible),
     takenSheetNames,
     names: { score: DEMO_ROLES.score, treated: DEMO_ROLES.treated, covariates: DEMO_ROLES.covariates },
   });
