@@ -44,6 +44,7 @@ async function step(name: string, body: () => Promise<void>): Promise<void> {
 
 /** The pane's page and scripts: the build's when there is one, else bundled here; the harness always here. */
 function buildSite(): void {
+  fs.rmSync(site, { recursive: true, force: true });
   fs.mkdirSync(site, { recursive: true });
   const common = { bundle: true, platform: 'browser' as const, target: 'es2020', format: 'iife' as const, logLevel: 'error' as const };
   buildSync({ ...common, entryPoints: [path.join(repo, 'test/browser/harness.ts')], outfile: path.join(site, 'harness.js') });
