@@ -18,7 +18,7 @@ import { ChartSpec } from './summaryTypes';
 
 export const CHART_WIDTH = 640;
 export const CHART_HEIGHT = 400;
-const M = { top: 44, right: 24, bottom: 56, left: 72 };
+const M = { top: 62, right: 24, bottom: 56, left: 72 };
 const COLORS = ['#1f4e9c', '#b3401a', '#2f7d32', '#7b3fa0', '#8a6d00'];
 const FONT = "DejaVu Sans, Arial, Helvetica, sans-serif";
 
@@ -112,16 +112,22 @@ export function chartSvg(spec: ChartSpec, idPrefix = ''): string {
   for (const p of spec.points ?? []) {
     out.push(`<circle class="bin-mean" cx="${r2(x(p.x))}" cy="${r2(y(p.y))}" r="3.5" fill="#1f4e9c" fill-opacity="0.85" data-count="${p.count}"/>`);
   }
-  // Legend for several lines that are not fit lines.
-  const legend = spec.points ? [] : (spec.lines ?? []);
-  if (legend.length > 1) {
-    legend.forEach((l, i) => {
-      const lx = W - M.right - 190;
-      const ly = M.top + 8 + i * 18;
+  // Legend in the top margin, under the title: bin means and fit, or one entry per line.
+  const entries: string[] = [];
+  if (spec.points) {
+    entries.push('<circle cx="6" cy="0" r="3.5" fill="#1f4e9c"/><text x="16" y="4">mean in a bin</text>');
+    if (spec.lines?.length) entries.push('<line x1="0" x2="26" y1="0" y2="0" stroke="#b3401a" stroke-width="2.5"/><text x="32" y="4">local linear fit</text>');
+  } else if ((spec.lines ?? []).length > 1) {
+    spec.lines!.forEach((l, i) => {
       const color = COLORS[i % COLORS.length];
-      out.push(`<line x1="${lx}" x2="${lx + 26}" y1="${ly}" y2="${ly}" stroke="${color}" stroke-width="2.5"${l.dashed ? ' stroke-dasharray="8 4"' : ''}/>`);
-      out.push(`<text x="${lx + 32}" y="${ly + 4}" fill="#111" font-size="12">${esc(l.label)}</text>`);
+      entries.push(`<line x1="0" x2="26" y1="0" y2="0" stroke="${color}" stroke-width="2.5"${l.dashed ? ' stroke-dasharray="8 4"' : ''}/><text x="32" y="4">${esc(l.label)}</text>`);
     });
+  }
+  if (spec.stretches?.length) entries.push('<rect x="0" y="-6" width="20" height="12" fill="#f4c542" fill-opacity="0.5"/><text x="26" y="4">distribution falls</text>');
+  if (entries.length) {
+    out.push('<g class="legend" font-size="12" fill="#111">');
+    entries.forEach((e, i) => out.push(`<g transform="translate(${M.left + i * 170} 44)">${e}</g>`));
+    out.push('</g>');
   }
   out.push('</svg>');
   return out.join('');

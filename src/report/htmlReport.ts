@@ -17,7 +17,7 @@ export function cellText(c: SummaryCell): string {
   if (c.value === null) return '';
   if (typeof c.value === 'string') return c.value;
   if (c.format === 'pvalue') return pval(c.value);
-  if (c.format === 'integer') return String(c.value);
+  if (c.format === 'integer' || c.format === 'plain') return String(c.value);
   return num(c.value);
 }
 
@@ -46,7 +46,7 @@ function tableHtml(t: SummaryTable, extraClass = ''): string {
 const CSS = `
 :root { color-scheme: light; }
 body { font-family: "DejaVu Sans", "Segoe UI", Arial, Helvetica, sans-serif; color: #111; background: #fff; margin: 0; line-height: 1.45; }
-main { max-width: 1000px; margin: 0 auto; padding: 24px 32px 48px; }
+main { max-width: 1120px; margin: 0 auto; padding: 24px 32px 48px; }
 h1 { font-size: 1.6rem; margin: 0 0 4px; }
 h2 { font-size: 1.2rem; margin: 32px 0 10px; border-bottom: 2px solid #1f4e9c; padding-bottom: 4px; }
 .source { color: #444; margin: 0 0 16px; }
@@ -65,7 +65,7 @@ figure svg { max-width: 100%; height: auto; border: 1px solid #e0e0e0; }
 figcaption { font-size: 0.85rem; color: #333; margin-top: 4px; }
 details { margin-top: 4px; }
 summary { cursor: pointer; color: #1f4e9c; font-size: 0.85rem; }
-.plots { display: grid; grid-template-columns: 1fr; }
+.plots { display: grid; grid-template-columns: repeat(auto-fill, minmax(460px, 1fr)); column-gap: 28px; }
 ul.cautions li, ul.warnings li { margin: 5px 0; }
 .warnings { color: #6b4500; }
 footer { margin-top: 36px; color: #555; font-size: 0.8rem; }

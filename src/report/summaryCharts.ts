@@ -63,6 +63,8 @@ export function buildCharts(r: CheckResult, treatedName: string): ChartSpec[] {
         { label: 'untreated compliers', points: c.at.map((x, i) => ({ x, y: c.cdf_untreated[i] })), step: true, dashed: true },
       ],
       stretches,
+      // A distribution runs from 0 to 1; an implied one may overshoot a little.
+      yDomain: [Math.min(0, ...c.cdf_treated, ...c.cdf_untreated), Math.max(1, ...c.cdf_treated, ...c.cdf_untreated)],
       table: `compliers:${o.name}`,
     });
   }

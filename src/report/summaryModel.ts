@@ -180,7 +180,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     rows: r.outcomes.flatMap((o) =>
       o.validity.by_bandwidth.map((b) => [
         text(o.name),
-        cell(b.multiple, 'number'),
+        cell(b.multiple, 'plain'),
         cell(b.bandwidth, 'number'),
         b.pvalue === undefined
           ? text(`cannot run: ${b.error ?? 'no result'}`)

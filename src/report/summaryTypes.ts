@@ -7,8 +7,8 @@
  * lay this out; none of them computes a number.
  */
 
-/** How a value is shown: `pvalue` three decimals (<0.001), `integer`, `number` four significant digits. */
-export type CellFormat = 'number' | 'pvalue' | 'integer' | 'text';
+/** How a value is shown: `pvalue` three decimals (<0.001), `integer`, `plain` as it is, `number` four significant digits. */
+export type CellFormat = 'number' | 'pvalue' | 'integer' | 'plain' | 'text';
 
 export interface SummaryCell {
   value: number | string | null;

@@ -51,14 +51,14 @@ export async function dataWorkbook(table: Table, sheetName = 'Data'): Promise<Wo
   return wb;
 }
 
-const NUMBER_FORMAT = { number: '0.0000', pvalue: '0.000', integer: '0', text: '@' } as const;
 
 function put(ws: Worksheet, row: number, col: number, c: SummaryCell): void {
   const x = ws.getCell(row, col + 1);
   x.value = c.value;
   if (typeof c.value === 'number') {
     const a = Math.abs(c.value);
-    x.numFmt = c.format === 'integer' ? '0' : c.format === 'pvalue' ? '0.000' : a !== 0 && (a >= 1e6 || a < 1e-3) ? '0.000E+00' : a >= 100 ? '0.0' : NUMBER_FORMAT.number;
+    x.numFmt =
+      c.format === 'integer' ? '0' : c.format === 'plain' ? 'General' : c.format === 'pvalue' ? '0.000' : a !== 0 && (a >= 1e6 || a < 1e-3) ? '0.000E+00' : a >= 100 ? '0.0' : '0.0000';
   }
 }
 
