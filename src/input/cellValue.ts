@@ -1,6 +1,6 @@
 /**
  * A cell as a workbook would store it: a number when the cell reads as a
- * plain decimal number (METHODS §1 rules, cells.ts), else its text as given
+ * plain decimal number (the rules of docs/methods.md §1, cells.ts), else its text as given
  * (missing markers and labels stay text), empty stays empty.
  *
  * @example cellValueOf('60.5') // 60.5; cellValueOf('NA') // 'NA'; cellValueOf('') // null

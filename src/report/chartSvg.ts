@@ -57,11 +57,11 @@ export function chartSvg(spec: ChartSpec, idPrefix = ''): string {
   const id = `${idPrefix}${spec.id.replace(/[^A-Za-z0-9_-]/g, '_')}`;
   const out: string[] = [];
   out.push(
-    `<svg xmlns="http://www.w3.org/2000/svg" class="chart" data-chart="${esc(spec.id)}" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" role="img" aria-labelledby="${id}-t ${id}-d" font-family="${FONT}" font-size="13">`,
+    `<svg xmlns="http://www.w3.org/2000/svg" class="chart" data-chart="${esc(spec.id)}" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" role="img" aria-labelledby="${id}-t ${id}-d" font-family="${FONT}" font-size="14">`,
   );
   out.push(`<title id="${id}-t">${esc(spec.title)}</title><desc id="${id}-d">${esc(spec.alt)}</desc>`);
   out.push(`<rect x="0" y="0" width="${W}" height="${H}" fill="#ffffff"/>`);
-  out.push(`<text x="${M.left}" y="24" font-size="16" font-weight="bold" fill="#111">${esc(spec.title)}</text>`);
+  out.push(`<text x="${M.left}" y="24" font-size="17" font-weight="bold" fill="#111">${esc(spec.title)}</text>`);
   // Grid and axes.
   const xt = x.ticks(8);
   const yt = y.ticks(6);
@@ -125,7 +125,7 @@ export function chartSvg(spec: ChartSpec, idPrefix = ''): string {
   }
   if (spec.stretches?.length) entries.push('<rect x="0" y="-6" width="20" height="12" fill="#f4c542" fill-opacity="0.5"/><text x="26" y="4">distribution falls</text>');
   if (entries.length) {
-    out.push('<g class="legend" font-size="12" fill="#111">');
+    out.push('<g class="legend" font-size="13" fill="#111">');
     entries.forEach((e, i) => out.push(`<g transform="translate(${M.left + i * 170} 44)">${e}</g>`));
     out.push('</g>');
   }

@@ -84,7 +84,7 @@ export function htmlReport(m: SummaryModel): string {
     .map(
       (s) =>
         `<tr><td>${esc(s.key)}</td><td class="${typeof s.value === 'number' ? 'num' : ''}"${s.formula ? ` title="${esc('=' + s.formula)}"` : ''}>${esc(
-          typeof s.value === 'number' ? (s.format === 'integer' ? String(s.value) : num(s.value)) : s.value,
+          typeof s.value === 'number' ? (s.format === 'integer' || s.format === 'plain' ? String(s.value) : num(s.value)) : s.value,
         )}</td><td>${esc(s.label)}</td></tr>`,
     )
     .join('\n');
@@ -110,11 +110,16 @@ export function htmlReport(m: SummaryModel): string {
 <body>
 <main>
 <h1>${esc(m.title)}</h1>
-<p class="source">Data: <strong>${esc(m.source)}</strong></p>
+<p class="source">Data: <strong>${esc(m.source)}</strong> — ${esc(m.dataLine)}</p>
 <section aria-labelledby="h-verdicts"><h2 id="h-verdicts">What the check found</h2>
 <ul class="verdicts">
 ${verdicts}
 </ul></section>
+<section aria-labelledby="h-settings"><h2 id="h-settings">Settings of the check</h2>
+<table class="results settings"><caption>The options the numbers below come from (the settings block of the workbook report)</caption><thead><tr><th scope="col">name</th><th scope="col">value</th><th scope="col">meaning</th></tr></thead><tbody>
+${settingsRows}
+</tbody></table>
+</section>
 <section aria-labelledby="h-results"><h2 id="h-results">Results</h2>
 ${m.tables.map((t) => tableHtml(t)).join('\n')}
 </section>
@@ -127,11 +132,6 @@ ${m.warnings.length ? `<section aria-labelledby="h-warnings"><h2 id="h-warnings"
 <ul class="cautions">
 ${m.cautions.map((c) => `<li>${esc(c)}</li>`).join('\n')}
 </ul></section>
-<section aria-labelledby="h-settings"><h2 id="h-settings">Settings</h2>
-<table class="results settings"><caption>Settings of the check</caption><thead><tr><th scope="col">name</th><th scope="col">value</th><th scope="col">meaning</th></tr></thead><tbody>
-${settingsRows}
-</tbody></table>
-</section>
 <footer>Written by Cutline. Hover a number to see the worksheet formula that computes it live in Excel with the Cutline add-in.</footer>
 </main>
 </body>

@@ -104,7 +104,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
   row = optionsStart;
   const opt = (key: string, label: string, value: number | string, format: CellFormat = 'text'): SettingRow => ({ key, label, value, format, address: at() });
   const settings: SettingRow[] = [
-    { ...cutoffCell, format: 'number' },
+    { ...cutoffCell, format: 'plain' },
     { ...bwCell, format: 'number' },
     { ...testCell, format: 'number' },
     opt('eligible', 'Eligible side of the cutoff (detected from the take-up jump)', r.eligible),
@@ -318,6 +318,13 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
   return {
     title: 'Cutline summary of a fuzzy regression-discontinuity check',
     source: ctx.source,
+    dataLine: [
+      `score ${ctx.names.score}`,
+      `treated ${ctx.names.treated}`,
+      `outcome${r.outcomes.length > 1 ? 's' : ''} ${r.outcomes.map((o) => o.name).join(', ')}`,
+      ...(r.balance?.length ? [`covariate${r.balance.length > 1 ? 's' : ''} ${r.balance.map((b) => b.name).join(', ')}`] : []),
+      `${r.rows.read} rows read, ${r.rows.used} used${r.rows.dropped ? ` (${r.rows.dropped} with a missing value)` : ''}${r.donut ? `, ${r.donut.excluded} inside the donut of ${r.donut.radius}` : ''}`,
+    ].join('; '),
     sheetName: summarySheetName(ctx.takenSheetNames),
     note:
       'The values were computed by the cutline command. The formulas beside them are text: with the Cutline add-in in Excel, typing one into a cell (with "=" in front) computes the same value live from the data and the settings cells.',

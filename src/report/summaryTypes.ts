@@ -84,6 +84,8 @@ export interface TextBlock {
 export interface SummaryModel {
   title: string;
   source: string;
+  /** The columns in their roles and the rows used, in words. */
+  dataLine: string;
   /** The summary sheet's name, never one the workbook already has. */
   sheetName: string;
   /** Says that values are computed and the formulas beside them are text. */

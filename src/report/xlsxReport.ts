@@ -116,7 +116,7 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
   heading(ws, 1, 0, m.title, 14);
   ws.getCell(2, 1).value = m.note;
   ws.getCell(2, 1).font = { italic: true, color: { argb: 'FF9C1F1F' } };
-  ws.getCell(3, 1).value = `Data: ${m.source}`;
+  ws.getCell(3, 1).value = `Data: ${m.source} — ${m.dataLine}`;
   const first = m.settings[0];
   const settingsRow = Number(/\d+$/.exec(first.address)![0]) - 1;
   ['name', 'value', 'meaning', 'formula (text)'].forEach((h, i) => {

@@ -66,6 +66,7 @@ describe('htmlReport', () => {
     const html = htmlReport({
       title: 'T',
       source: 'a<b>.csv',
+      dataLine: 'score s; treated d',
       sheetName: 'S',
       note: 'n',
       settings: [{ key: 'cutoff', label: 'Cutoff', value: 0, address: '$B$6', format: 'number' }],
