@@ -69,6 +69,9 @@ async function check(args: ParsedArgs): Promise<number> {
   const file = args.file;
   if (!file) throw new CutlineError('check needs an input FILE (CSV or XLSX)');
   const isFolder = args.files.length === 1 && fs.existsSync(file) && fs.statSync(file).isDirectory();
+  if (isFolder && !args.values.has('out-dir')) {
+    throw new CutlineError(`${file} is a folder, not a CSV or XLSX file; to check every file in it, give --out-dir DIR for their reports`);
+  }
   if (args.files.length > 1 || isFolder || args.values.has('out-dir')) return batch(args);
   for (const only of ['format', 'jobs']) {
     if (args.values.has(only)) throw new CutlineError(`--${only} applies to several files with --out-dir DIR`);
