@@ -19,6 +19,9 @@ import { CHART_HEIGHT, CHART_WIDTH, chartSvg } from './chartSvg';
 import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
 
 type Workbook = ExcelJS.Workbook;
+/** Values and pictures fill columns A to M (what is printed); the formula text starts at column N. */
+const PRINTED_COLUMNS = 13;
+const FORMULA_COLUMN = 13;
 type Worksheet = ExcelJS.Worksheet;
 
 async function exceljs(): Promise<typeof ExcelJS.Workbook> {
@@ -55,6 +58,7 @@ export async function dataWorkbook(table: Table, sheetName = 'Data'): Promise<Wo
 function put(ws: Worksheet, row: number, col: number, c: SummaryCell): void {
   const x = ws.getCell(row, col + 1);
   x.value = c.value;
+  if (typeof c.value === 'string' && col > 0) x.alignment = { horizontal: 'left', indent: 1 };
   if (typeof c.value === 'number') {
     const a = Math.abs(c.value);
     x.numFmt =
@@ -80,7 +84,7 @@ function writeTable(ws: Worksheet, t: SummaryTable): void {
   t.rows.forEach((r, j) => r.forEach((c, i) => put(ws, t.row + 1 + j, i, c)));
   const withFormula = t.columns.map((_, i) => t.rows.some((r) => r[i]?.formula !== undefined));
   if (withFormula.some(Boolean)) {
-    const start = t.columns.length + 1;
+    const start = FORMULA_COLUMN;
     heading(ws, t.row - 1, start, 'Formulas that compute these values live (text; see the note in row 2)', 10);
     let k = 0;
     t.columns.forEach((c, i) => {
@@ -98,11 +102,16 @@ function writeTable(ws: Worksheet, t: SummaryTable): void {
       k++;
     });
   }
-  if (t.note) {
-    const x = ws.getCell(t.row + t.rows.length + 1, 1);
-    x.value = t.note;
-    x.font = { italic: true, size: 9 };
-  }
+  if (t.note) wrapped(ws, t.row + t.rows.length + 1, t.note, { italic: true, size: 9 });
+}
+
+/** A line of text across the printed columns, wrapped (LibreOffice and Excel fit the row's height). */
+function wrapped(ws: Worksheet, row: number, text: string, font: Partial<ExcelJS.Font> = {}): void {
+  ws.mergeCells(row, 1, row, PRINTED_COLUMNS);
+  const x = ws.getCell(row, 1);
+  x.value = text;
+  x.font = font;
+  x.alignment = { wrapText: true, vertical: 'top' };
 }
 
 /**
@@ -114,12 +123,11 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
   ws.getColumn(1).width = 44;
   for (let c = 2; c <= 10; c++) ws.getColumn(c).width = 16;
   heading(ws, 1, 0, m.title, 14);
-  ws.getCell(2, 1).value = m.note;
-  ws.getCell(2, 1).font = { italic: true, color: { argb: 'FF9C1F1F' } };
-  ws.getCell(3, 1).value = `Data: ${m.source} — ${m.dataLine}`;
+  wrapped(ws, 2, m.note, { italic: true, color: { argb: 'FF9C1F1F' } });
+  wrapped(ws, 3, `Data: ${m.source} — ${m.dataLine}`);
   const first = m.settings[0];
   const settingsRow = Number(/\d+$/.exec(first.address)![0]) - 1;
-  ['name', 'value', 'meaning', 'formula (text)'].forEach((h, i) => {
+  ['name', 'value', 'meaning'].forEach((h, i) => {
     const x = ws.getCell(settingsRow, i + 1);
     x.value = h;
     x.font = { bold: true };
@@ -131,16 +139,18 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
     ws.getCell(row, 1).value = s.key;
     put(ws, row, 1, { value: s.value, format: s.format });
     ws.getCell(row, 3).value = s.label;
-    if (s.formula) ws.getCell(row, 4).value = s.formula;
+    if (s.formula) {
+      ws.getCell(row, FORMULA_COLUMN + 1).value = s.formula;
+      ws.getCell(row, FORMULA_COLUMN + 1).font = { color: { argb: 'FF555555' }, size: 9 };
+    }
   }
+  const f = ws.getCell(settingsRow, FORMULA_COLUMN + 1);
+  f.value = 'formula (text) of a computed setting';
+  f.font = { bold: true, italic: true, color: { argb: 'FF555555' } };
   for (const t of m.tables) writeTable(ws, t);
   for (const b of m.textBlocks) {
     heading(ws, b.row, 0, b.title);
-    b.lines.forEach((l, i) => {
-      const x = ws.getCell(b.row + 1 + i, 1);
-      x.value = l;
-      if (b.id === 'verdicts') x.font = { bold: true };
-    });
+    b.lines.forEach((l, i) => wrapped(ws, b.row + 1 + i, l, b.id === 'verdicts' ? { bold: true } : {}));
   }
   if (png) {
     m.charts.forEach((c, i) => {
@@ -151,6 +161,11 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
     });
   }
   for (const t of m.plotTables) writeTable(ws, t);
+  // Printed: the values and the pictures (columns A to M), landscape, one page wide; the formula text
+  // further right is for copying, not for reading on paper. exceljs writes '$' before the column
+  // itself, so the rows carry theirs here: the name becomes $A$1:$M$n, which LibreOffice also reads.
+  const last = String.fromCharCode(64 + PRINTED_COLUMNS);
+  ws.pageSetup = { ...ws.pageSetup, orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printArea: `A$1:${last}$${ws.rowCount}` };
   return ws;
 }
 

@@ -73,8 +73,9 @@ test('the summary holds the engine numbers, the formulas as text beside them, an
   expect(eff.getCell(2).value).toBe(json.outcomes[0].effect.estimate);
   expect(eff.getCell(6).value).toBe(json.outcomes[0].effect.ci_robust[0]);
   expect(eff.getCell(7).value).toBe(json.outcomes[0].effect.ci_robust[1]);
-  // Beside the values: the formula text that computes them live, referencing the data sheet.
-  expect(String(eff.getCell(10).value)).toMatch(/^CUTLINE\.EFFECT\(Readings!\$A\$2:\$A\$401, Readings!\$B\$2:\$B\$401, Readings!\$C\$2:\$C\$401, \$B\$6, \$B\$7, \$A\$9:\$B\$18\)$/);
+  // Beside the values (from column N, right of what is printed): the formula text that computes them
+  // live, referencing the data sheet and the settings cells.
+  expect(String(eff.getCell(14).value)).toMatch(/^CUTLINE\.EFFECT\(Readings!\$A\$2:\$A\$401, Readings!\$B\$2:\$B\$401, Readings!\$C\$2:\$C\$401, \$B\$6, \$B\$7, \$A\$9:\$B\$18\)$/);
   expect(rowOf('cutoff').getCell(2).value).toBe(0);
   expect(rowOf('bandwidth').getCell(2).value).toBe(json.bandwidth.value);
   expect(String(ws.getCell('A2').value)).toMatch(/formulas beside them are text/);
@@ -102,6 +103,8 @@ const soffice = needsProgram('soffice', 'apt-get install -y --no-install-recomme
     // The verdict sentences, with Cutline's four significant digits.
     expect(text).toContain(`Take-up jumps by ${num(json.takeup.estimate)}`);
     expect(text).toContain(`the effect for compliers is ${num(json.outcomes[0].effect.estimate)}`);
+    // The print area holds the values and pictures; the formula text is for copying, not printed.
+    expect(text).not.toContain('VLOOKUP(');
   },
   180000,
 );
