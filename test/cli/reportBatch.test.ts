@@ -1,11 +1,12 @@
 // `cutline check FOLDER --out-dir DIR`: 20 generated files, one malformed: 19 pairs of reports, an index
 // row for each of the 20 (the bad one with its error naming the column and row), exit 2 after all ran.
 // The index's numbers are those of checking the same file alone (--json).
+import { spawnSync } from 'child_process';
 import * as fs from 'fs';
 import * as os from 'os';
 import * as path from 'path';
 import { fuzzyDesignCsv } from '../helpers/fuzzyDesignCsv';
-import { runCli } from '../helpers/runCli';
+import { root, runCli } from '../helpers/runCli';
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cutline-batch-'));
 const inDir = path.join(dir, 'clients');
@@ -81,4 +82,20 @@ test('several files need --out-dir; --out names one file', () => {
   const r4 = runCli(['check', a, ...OPTS, '--format', 'pdf', '--out-dir', path.join(dir, 'o')]);
   expect(r4.code).toBe(2);
   expect(r4.err).toMatch(/--format must be xlsx, html or xlsx,html/);
+});
+
+test('a progress bar on standard error only when it is a terminal (util-linux `script` gives one)', () => {
+  const folder = path.join(dir, 'two');
+  fs.mkdirSync(folder);
+  fs.writeFileSync(path.join(folder, 'p.csv'), fuzzyDesignCsv(200, 3));
+  fs.writeFileSync(path.join(folder, 'q.csv'), fuzzyDesignCsv(200, 4));
+  const args = ['check', folder, ...OPTS, '--format', 'html', '--force'];
+  const plain = runCli([...args, '--out-dir', path.join(dir, 'plain')]);
+  expect(plain.code).toBe(0);
+  expect(plain.err).toBe('');
+  expect(plain.out).toBe(`2 files: 2 checked, 0 failed; index in ${path.join(dir, 'plain')}/index.html and index.csv\n`);
+  const cmd = [process.execPath, path.join(root, 'bin/cutline.cjs'), ...args, '--out-dir', path.join(dir, 'tty')].map((a) => `'${a.replace(/'/g, `'\\''`)}'`).join(' ');
+  const r = spawnSync('script', ['-qec', cmd, '/dev/null'], { encoding: 'utf8', cwd: root });
+  expect(r.status).toBe(0);
+  expect(r.stdout).toMatch(/cutline .* 2\/2 files/);
 });
