@@ -98,7 +98,7 @@ export function htmlReport(m: SummaryModel): string {
       }</figure>`;
     })
     .join('\n');
-  const verdicts = m.verdicts.map((v) => `<li${/rejects|jumps at the cutoff \(|contradict the design for/.test(v) && !/does not reject/.test(v) ? ' class="verdict-reject"' : ''}>${esc(v)}</li>`).join('\n');
+  const verdicts = m.verdicts.map((v) => `<li${v.concern ? ' class="verdict-reject"' : ''}>${esc(v.text)}</li>`).join('\n');
   return `<!DOCTYPE html>
 <html lang="en">
 <head>

@@ -23,7 +23,7 @@ import { CAUTIONS } from './cautions';
 import * as F from './formulas';
 import { num, pval } from './numberText';
 import { buildCharts } from './summaryCharts';
-import { CellFormat, Headline, SettingRow, SummaryCell, SummaryModel, SummaryTable, TextBlock } from './summaryTypes';
+import { CellFormat, Headline, SettingRow, SummaryCell, SummaryModel, SummaryTable, TextBlock, Verdict } from './summaryTypes';
 
 /** Where the data sit: the sheet, its first and last data rows, and each named column's 0-based index. */
 export interface DataRanges {
@@ -252,7 +252,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
   ];
   const textBlocks: TextBlock[] = [];
   for (const [id, title, lines] of [
-    ['verdicts', 'What the check found', verdicts],
+    ['verdicts', 'What the check found', verdicts.map((v) => v.text)],
     ['warnings', 'Warnings', warnings],
     ['cautions', 'Cautions', CAUTIONS],
   ] as const) {
@@ -341,35 +341,41 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
   };
 }
 
-function verdictSentences(r: CheckResult): string[] {
-  const out: string[] = [];
+function verdictSentences(r: CheckResult): Verdict[] {
+  const out: Verdict[] = [];
+  const say = (text: string, concern = false): void => {
+    out.push({ text, concern });
+  };
   const side = r.eligible === 'above' ? `at or above ${r.cutoff}` : `below ${r.cutoff}`;
-  out.push(
+  say(
     `Units scoring ${side} are eligible. Take-up jumps by ${num(r.takeup.estimate)} at the cutoff (robust 95% interval ${num(r.takeup.ci_robust[0])} to ${num(r.takeup.ci_robust[1])}, p ${pvalWords(r.takeup.pvalue)}).`,
   );
   for (const o of r.outcomes) {
     const e = o.effect;
     const covers = e.ci_robust[0] <= 0 && e.ci_robust[1] >= 0;
-    out.push(
+    say(
       `${o.name}: the effect for compliers is ${num(e.estimate)} (robust 95% interval ${num(e.ci_robust[0])} to ${num(e.ci_robust[1])}${covers ? ', which includes no effect' : ''}). ` +
         (o.validity.rejects
           ? `The outcome–treatment test rejects (p ${pvalWords(o.validity.pvalue)}): the data contradict the design for this outcome.`
           : `The outcome–treatment test does not reject (p ${pvalWords(o.validity.pvalue)}): the data do not contradict the design for this outcome, which is not proof that it holds.`),
+      o.validity.rejects,
     );
   }
   if (r.density) {
-    out.push(
+    say(
       r.density.pvalue <= 0.05
         ? `The density of the score jumps at the cutoff (p ${pvalWords(r.density.pvalue)}): a sign that units may have sorted themselves across it.`
         : `The density of the score shows no significant jump at the cutoff (p ${pvalWords(r.density.pvalue)}).`,
+      r.density.pvalue <= 0.05,
     );
   }
   for (const b of r.balance ?? []) {
     if (b.pvalue_holm === undefined) continue;
-    out.push(
+    say(
       b.pvalue_holm <= 0.05
         ? `${b.name} jumps at the cutoff (Holm-adjusted p ${pvalWords(b.pvalue_holm)}): units on the two sides differ before treatment.`
         : `${b.name} shows no significant jump at the cutoff (Holm-adjusted p ${pvalWords(b.pvalue_holm)}).`,
+      b.pvalue_holm <= 0.05,
     );
   }
   return out;

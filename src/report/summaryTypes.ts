@@ -73,6 +73,12 @@ export interface ChartSpec {
   anchor?: { row: number; col: number };
 }
 
+/** A finding in plain words; `concern` when it speaks against the design (a rejection, a jump). */
+export interface Verdict {
+  text: string;
+  concern: boolean;
+}
+
 /** Lines of text under a heading (verdicts, warnings, cautions), one a row from `row`. */
 export interface TextBlock {
   id: 'verdicts' | 'warnings' | 'cautions';
@@ -93,7 +99,7 @@ export interface SummaryModel {
   settings: SettingRow[];
   /** The two-column name/value range passed as `settings` to every formula. */
   settingsRange: string;
-  verdicts: string[];
+  verdicts: Verdict[];
   tables: SummaryTable[];
   /** Verdicts, warnings and cautions as placed on the sheet (below the result tables). */
   textBlocks: TextBlock[];

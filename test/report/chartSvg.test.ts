@@ -71,7 +71,7 @@ describe('htmlReport', () => {
       note: 'n',
       settings: [{ key: 'cutoff', label: 'Cutoff', value: 0, address: '$B$6', format: 'number' }],
       settingsRange: '$A$9:$B$18',
-      verdicts: ['v <1>'],
+      verdicts: [{ text: 'v <1>', concern: true }],
       tables: [{ id: 't', title: 'Tab', columns: ['a', 'b'], rows: [[{ value: 'x<y', format: 'text' }, { value: 0.0004, format: 'pvalue', formula: 'CUTLINE.TAKEUP(A, B, $B$6)' }]], row: 20 }],
       textBlocks: [],
       plotTables: [],
@@ -81,6 +81,7 @@ describe('htmlReport', () => {
       headline: { cutoff: 0, eligible: 'above', rows_used: 1, bandwidth: 1, takeup: 1, takeup_pvalue: 0, outcomes: [] },
     });
     expect(html).toContain('a&lt;b&gt;.csv');
+    expect(html).toContain('<li class="verdict-reject">v &lt;1&gt;</li>');
     expect(html).toContain('<th scope="row">x&lt;y</th>');
     expect(html).toContain('<td class="num" title="=CUTLINE.TAKEUP(A, B, $B$6)">&lt;0.001</td>');
     expect(html).not.toMatch(/<script|<link|src="http|href="http|@import/i);

@@ -82,6 +82,19 @@ describe('summary model', () => {
     for (const n of ['TAKEUP', 'JUMP', 'EFFECT', 'VALIDITY', 'DENSITYTEST', 'BALANCE', 'BINS', 'COMPLIERCDF']) expect(names).toContain(n);
   });
 
+  test('verdicts in plain words; a rejection is marked as a concern and the non-rejection is not called proof', () => {
+    const o = result.outcomes[0];
+    expect(model.verdicts[1]).toEqual({
+      text: expect.stringMatching(/^y: the effect for compliers is .*does not reject .*which is not proof that it holds\.$/),
+      concern: false,
+    });
+    const rejected = { ...result, outcomes: [{ ...o, validity: { ...o.validity, pvalue: 0.012, rejects: true } }] };
+    const m2 = buildSummary(rejected, { source: 'design.csv', data, options, names: { score: 'score', treated: 'treated' } });
+    expect(m2.verdicts[1].concern).toBe(true);
+    expect(m2.verdicts[1].text).toMatch(/rejects \(p = 0\.012\): the data contradict the design for this outcome/);
+    expect(m2.tables.find((t) => t.id === 'validity')!.rows[0][3].value).toBe('contradicted');
+  });
+
   test('the sheet name never collides (Excel compares names ignoring case)', () => {
     expect(summarySheetName([])).toBe('Cutline summary');
     expect(summarySheetName(['cutline SUMMARY', 'Cutline summary (2)'])).toBe('Cutline summary (3)');
