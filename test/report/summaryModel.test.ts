@@ -84,14 +84,17 @@ describe('summary model', () => {
 
   test('verdicts in plain words; a rejection is marked as a concern and the non-rejection is not called proof', () => {
     const o = result.outcomes[0];
-    expect(model.verdicts[1]).toEqual({
-      text: expect.stringMatching(/^y: the effect for compliers is .*does not reject .*which is not proof that it holds\.$/),
+    const forced = (pvalue: number) => ({ ...result, outcomes: [{ ...o, validity: { ...o.validity, pvalue, rejects: pvalue <= 0.05 } }] });
+    const ctx = { source: 'design.csv', data, options, names: { score: 'score', treated: 'treated' } };
+    const m1 = buildSummary(forced(0.4), ctx);
+    expect(m1.verdicts[1]).toEqual({
+      text: expect.stringMatching(/^y: the effect for compliers is .*does not reject \(p = 0\.400\).*which is not proof that it holds\.$/),
       concern: false,
     });
-    const rejected = { ...result, outcomes: [{ ...o, validity: { ...o.validity, pvalue: 0.012, rejects: true } }] };
-    const m2 = buildSummary(rejected, { source: 'design.csv', data, options, names: { score: 'score', treated: 'treated' } });
+    const m2 = buildSummary(forced(0.012), ctx);
     expect(m2.verdicts[1].concern).toBe(true);
     expect(m2.verdicts[1].text).toMatch(/rejects \(p = 0\.012\): the data contradict the design for this outcome/);
+    expect(model.verdicts[1].concern).toBe(result.outcomes[0].validity.rejects);
     expect(m2.tables.find((t) => t.id === 'validity')!.rows[0][3].value).toBe('contradicted');
   });
 
