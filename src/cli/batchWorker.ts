@@ -7,6 +7,7 @@ import { parentPort } from 'worker_threads';
 import { CutlineError } from '../engine/errors';
 import { WorkerReply, WorkerTask } from './batch';
 import { checkFile } from './checkFile';
+import { withFlags } from './flagHints';
 import { writeReports } from './reportFiles';
 
 export function startBatchWorker(): void {
@@ -17,7 +18,7 @@ export function startBatchWorker(): void {
       const model = await writeReports(c.source, c.result, t.spec.options, c.names, t.req);
       reply = { ok: true, headline: model.headline };
     } catch (e) {
-      const msg = e instanceof CutlineError ? e.message.replace(/\s*\n\s*/g, ' ') : `internal error: ${e instanceof Error ? e.message : String(e)}`;
+      const msg = e instanceof CutlineError ? withFlags(e.message).replace(/\s*\n\s*/g, ' ') : `internal error: ${e instanceof Error ? e.message : String(e)}`;
       reply = { ok: false, error: msg };
     }
     parentPort!.postMessage(reply);

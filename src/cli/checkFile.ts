@@ -39,6 +39,15 @@ function sensitivityOption(s: string | undefined): number[] | undefined {
   return values;
 }
 
+/** Equal values and equal missing cells on every row. */
+function sameValues(a: CheckInput['score'], b: CheckInput['score']): boolean {
+  for (let i = 0; i < a.values.length; i++) {
+    const ma = a.missing?.[i] ?? 0;
+    if (ma !== (b.missing?.[i] ?? 0) || (!ma && a.values[i] !== b.values[i])) return false;
+  }
+  return true;
+}
+
 /** One column, one role: an outcome given twice, or the score as the outcome, is a slip, not a request. */
 function distinctRoles(input: CheckInput): void {
   const roles: Array<[string, string]> = [
@@ -50,9 +59,24 @@ function distinctRoles(input: CheckInput): void {
     const j = roles.findIndex(([, other]) => other === name);
     if (j < i) throw new CutlineError(`${role}: column ${JSON.stringify(name)} is already given as ${roles[j][0]}`);
   });
-  const covs = (input.covariates ?? []).map((c) => c.name);
-  covs.forEach((name, i) => {
-    if (covs.indexOf(name) < i) throw new CutlineError(`--covariate: column ${JSON.stringify(name)} is given twice`);
+  const covs = input.covariates ?? [];
+  covs.forEach((c, i) => {
+    if (covs.findIndex((o) => o.name === c.name) < i) throw new CutlineError(`--covariate: column ${JSON.stringify(c.name)} is given twice`);
+    // A covariate is a characteristic fixed before treatment: the score, the treated column or an
+    // outcome (or a copy of one under another name) would show a "jump" by construction. Refused.
+    const role = roles.find(([, name]) => name === c.name);
+    if (role) {
+      throw new CutlineError(
+        `--covariate: column ${JSON.stringify(c.name)} is already given as ${role[0]}; a covariate must be a characteristic fixed before treatment (the balance check of the score, take-up or an outcome is meaningless), so give another column`,
+      );
+    }
+    const same = [input.score, input.treated, ...input.outcomes].find((col) => sameValues(col, c));
+    if (same) {
+      const r = roles.find(([, name]) => name === same.name)!;
+      throw new CutlineError(
+        `--covariate: column ${JSON.stringify(c.name)} holds the same values as ${JSON.stringify(same.name)} (${r[0]}) on every row; a covariate must be a characteristic fixed before treatment, so give another column`,
+      );
+    }
   });
 }
 

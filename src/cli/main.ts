@@ -11,6 +11,7 @@ import { numberOption, one, parseArgs, ParsedArgs } from './args';
 import { runBatch } from './batch';
 import { startBatchWorker } from './batchWorker';
 import { checkFile, parseCheckSpec } from './checkFile';
+import { withFlags } from './flagHints';
 import { toJson } from './json';
 import { checkOutputPath } from './outputPaths';
 import { readable } from './readable';
@@ -100,12 +101,17 @@ async function main(argv: string[]): Promise<number> {
       process.stdout.write(USAGE);
       return argv.length === 0 ? 2 : 0;
     }
+    // `cutline check --help` (anywhere after the command) prints the usage too.
+    if (argv[0] === 'check' && argv.slice(1).some((a) => a === '--help' || a === '-h')) {
+      process.stdout.write(USAGE);
+      return 0;
+    }
     const args = parseArgs(argv);
     if (args.command !== 'check') throw new CutlineError(`unknown command ${JSON.stringify(args.command)}; the command is \`cutline check\``);
     return await check(args);
   } catch (e) {
     if (e instanceof CutlineError) {
-      process.stderr.write(`cutline: ${e.message.replace(/\s*\n\s*/g, ' ')}\n`);
+      process.stderr.write(`cutline: ${withFlags(e.message).replace(/\s*\n\s*/g, ' ')}\n`);
       return 2;
     }
     process.stderr.write(`cutline: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
