@@ -7,6 +7,7 @@
  */
 import * as path from 'path';
 import type { CheckOptions, CheckResult } from '../engine/check/check';
+import { CutlineError } from '../engine/errors';
 import { Table } from '../input/table';
 import { htmlReport } from '../report/htmlReport';
 import { buildSummary, DataRanges } from '../report/summaryModel';
@@ -14,6 +15,9 @@ import { SummaryModel } from '../report/summaryTypes';
 import { svgPng } from '../report/svgPng';
 import { addSummarySheet, dataWorkbook, loadWorkbook, workbookBytes } from '../report/xlsxReport';
 import { writeAtomic } from './outputPaths';
+
+/** Rows of an Excel worksheet (2^20). */
+const MAX_SHEET_ROWS = 1048576;
 
 export interface ReportRequest {
   xlsx?: string;
@@ -45,6 +49,11 @@ export async function writeReports(
   names: { score: string; treated: string },
   req: ReportRequest,
 ): Promise<SummaryModel> {
+  if (req.xlsx && !src.isXlsx && src.table.rowCount + 1 > MAX_SHEET_ROWS) {
+    throw new CutlineError(
+      `--out: ${path.basename(src.file)} has ${src.table.rowCount} data rows, more than a worksheet holds (${MAX_SHEET_ROWS - 1} below its header); write the web page (--html) instead`,
+    );
+  }
   const wb = src.isXlsx ? await loadWorkbook(src.bytes) : await dataWorkbook(src.table, 'Data');
   const dataSheet = src.isXlsx ? (src.sheet ?? wb.worksheets[0].name) : 'Data';
   const model = buildSummary(result, {
