@@ -73,7 +73,8 @@ footer { margin-top: 36px; color: #555; font-size: 0.8rem; }
   main { max-width: none; padding: 0; }
   h2 { break-after: avoid; page-break-after: avoid; }
   table.results { break-inside: auto; font-size: 9pt; }
-  details > *:not(summary) { display: none; }
+  details { display: none; }
+  figure svg { max-width: 16cm; }
   a { color: inherit; text-decoration: none; }
 }
 @page { margin: 16mm; }

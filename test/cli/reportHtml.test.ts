@@ -2,11 +2,13 @@
 // a screenshot for people to look at (test-output/report.png), and each plot's SVG holds one point per
 // non-empty bin, bars whose counts add up to the rows of the data, and one p-value per bandwidth.
 // The counts of rows come from reading the CSV here, not from Cutline.
+import { spawnSync } from 'child_process';
 import * as fs from 'fs';
 import * as os from 'os';
 import * as path from 'path';
 import { chromium } from 'playwright-core';
-import { needsProgram, root, runCli } from '../helpers/runCli';
+import { num } from '../../src/report/numberText';
+import { hasProgram, needsProgram, root, runCli } from '../helpers/runCli';
 
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cutline-html-'));
 const html = path.join(dir, 'report.html');
@@ -101,6 +103,21 @@ const chromiumPresent = needsProgram('chromium', 'apt-get install -y --no-instal
       expect(sens.series).toBe(2);
       expect(sens.linePoints).toBe(j.outcomes.reduce((s: number, o: any) => s + o.validity.by_bandwidth.length, 0));
       expect(sens.linePoints).toBe(10);
+
+      // Printed (A4, print styles): every figure and its caption on the page, the tables behind the
+      // plots folded away. pdftotext (poppler) reads the PDF when it is installed.
+      await page.emulateMedia({ media: 'print' });
+      const pdf = path.join(root, 'test-output', 'report.pdf');
+      await page.pdf({ path: pdf, format: 'A4', printBackground: true });
+      if (hasProgram('pdftotext')) {
+        const text = spawnSync('pdftotext', ['-layout', pdf, '-'], { encoding: 'utf8' }).stdout;
+        for (let k = 1; k <= 9; k++) expect(text).toContain(`Figure ${k}.`);
+        expect(text).toContain(`Take-up jumps by ${num(j.takeup.estimate)}`);
+        expect(text).not.toContain('The numbers behind this plot');
+        const pages = text.split('\f').filter((p) => p.trim() !== '').length;
+        expect(pages).toBeGreaterThanOrEqual(4);
+        expect(pages).toBeLessThanOrEqual(16);
+      }
     } finally {
       await browser.close();
     }
