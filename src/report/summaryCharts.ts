@@ -10,7 +10,7 @@
  */
 import type { CheckResult } from '../engine/check/check';
 import type { BinnedSeries } from '../engine/check/designChecks';
-import { num } from './numberText';
+import { num, pval } from './numberText';
 import { ChartSpec } from './summaryTypes';
 
 function fitPoints(b: BinnedSeries, side: 'below' | 'above', cutoff: number): Array<{ x: number; y: number }> {
@@ -77,7 +77,7 @@ export function buildCharts(r: CheckResult, treatedName: string): ChartSpec[] {
       title: 'Scores around the cutoff',
       xLabel: 'score',
       yLabel: 'units per score unit',
-      alt: `Histogram of the score in ${bars.length} non-empty bins (${tk.bins_below} laid below the cutoff ${r.cutoff}, ${tk.bins_above} above); a pile-up just on one side would suggest sorting. Density test p = ${r.density ? num(r.density.pvalue, 3) : 'not computed'}.`,
+      alt: `Histogram of the score in ${bars.length} non-empty bins (${tk.bins_below} laid below the cutoff ${r.cutoff}, ${tk.bins_above} above); a pile-up just on one side would suggest sorting. Density test p = ${r.density ? pval(r.density.pvalue) : 'not computed'}.`,
       bars,
       verticals: [{ x: r.cutoff, label: `cutoff ${r.cutoff}` }],
       table: `bins:${tk.name}`,
