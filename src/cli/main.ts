@@ -91,7 +91,10 @@ async function check(args: ParsedArgs): Promise<number> {
   const c = await checkFile(file, spec, bins || reports);
   if (args.flags.has('json')) process.stdout.write(JSON.stringify(toJson(bins ? c.result : withoutPlotData(c.result)), null, 2) + '\n');
   else process.stdout.write(readable(file, c.result));
-  if (reports) await writeReports(c.source, c.result, spec.options, c.names, { xlsx, html });
+  if (reports) {
+    await writeReports(c.source, c.result, spec.options, c.names, { xlsx, html });
+    if (!args.flags.has('json')) process.stdout.write(`\nReports written: ${[xlsx, html].filter((p) => p !== undefined).join(', ')}\n`);
+  }
   return 0;
 }
 
