@@ -52,6 +52,7 @@ test('an existing report is replaced only with --force', () => {
   expect(fs.readFileSync(out, 'utf8')).toBe('an earlier report');
   const r = runCli(['check', csv, ...OPTS, '--html', out, '--force']);
   expect(r.code).toBe(0);
+  expect(r.out.endsWith(`\nReports written: ${out}\n`)).toBe(true);
   expect(fs.readFileSync(out, 'utf8')).toMatch(/^<!DOCTYPE html>/);
   fs.unlinkSync(out);
 });
