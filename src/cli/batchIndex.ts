@@ -21,6 +21,8 @@ function csvField(v: string | number | undefined): string {
   return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
+const verdictWord = (rejects: boolean | undefined): string => (rejects === undefined ? 'not applicable' : rejects ? 'contradicted' : 'not contradicted');
+
 export function indexCsv(rows: IndexRow[], outcomeNames: string[]): string {
   const head = ['file', 'status', 'error', 'cutoff', 'eligible', 'rows_used', 'bandwidth', 'takeup_jump', 'takeup_pvalue'];
   for (const o of outcomeNames) head.push(`${o}_effect`, `${o}_robust_low`, `${o}_robust_high`, `${o}_effect_pvalue`, `${o}_validity_pvalue`, `${o}_verdict`);
@@ -31,7 +33,7 @@ export function indexCsv(rows: IndexRow[], outcomeNames: string[]): string {
     const f: Array<string | number | undefined> = [r.file, r.error ? 'error' : 'checked', r.error, h?.cutoff, h?.eligible, h?.rows_used, h?.bandwidth, h?.takeup, h?.takeup_pvalue];
     outcomeNames.forEach((_, j) => {
       const o = h?.outcomes[j];
-      f.push(o?.effect, o?.ci_robust[0], o?.ci_robust[1], o?.effect_pvalue, o?.validity_pvalue, o ? (o.rejects ? 'contradicted' : 'not contradicted') : undefined);
+      f.push(o?.effect, o?.ci_robust[0], o?.ci_robust[1], o?.effect_pvalue, o?.validity_pvalue, o ? verdictWord(o.rejects) : undefined);
     });
     f.push(h?.density_pvalue, h?.balance_min_holm, r.reports.join(' '));
     lines.push(f.map(csvField).join(','));
@@ -54,7 +56,11 @@ export function indexHtml(rows: IndexRow[], outcomeNames: string[]): string {
         `${num(h.takeup)} (p ${pval(h.takeup_pvalue)})`,
         ...h.outcomes.flatMap((o) => [
           `${num(o.effect)} [${num(o.ci_robust[0])}, ${num(o.ci_robust[1])}]`,
-          o.rejects ? `<span class="reject">contradicted (p ${pval(o.validity_pvalue)})</span>` : `not contradicted (p ${pval(o.validity_pvalue)})`,
+          o.validity_pvalue === undefined
+            ? 'not applicable'
+            : o.rejects
+              ? `<span class="reject">contradicted (p ${pval(o.validity_pvalue)})</span>`
+              : `not contradicted (p ${pval(o.validity_pvalue)})`,
         ]),
         h.density_pvalue === undefined ? '–' : pval(h.density_pvalue),
         r.reports.map((p) => `<a href="${esc(encodeURI(p))}">${esc(p)}</a>`).join('<br>'),

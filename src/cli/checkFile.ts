@@ -103,6 +103,7 @@ export function parseCheckSpec(args: ParsedArgs): CheckSpec {
   );
   const trim = numberOption(args, 'trim', (v) => (v >= 0 ? null : 'must be at least 0'));
   const multiplier = choiceOption(args, 'multiplier', ['normal', 'rademacher'] as const);
+  const trendGuard = choiceOption(args, 'trend-guard', ['on', 'off'] as const);
   const sensitivity = sensitivityOption(one(args, 'sensitivity'));
   const densityBin = numberOption(args, 'density-bin', (v) => (v > 0 ? null : 'must be positive'));
   const densityBandwidth = numberOption(args, 'density-bandwidth', (v) => (v > 0 ? null : 'must be positive'));
@@ -115,7 +116,23 @@ export function parseCheckSpec(args: ParsedArgs): CheckSpec {
     clusterName,
     withinName: one(args, 'within'),
     sheet: one(args, 'sheet'),
-    options: { cutoff, bandwidth, rule, kernel, variance, draws, seed, grid, trim, multiplier, sensitivity, densityBin, densityBandwidth, donut },
+    options: {
+      cutoff,
+      bandwidth,
+      rule,
+      kernel,
+      variance,
+      draws,
+      seed,
+      grid,
+      trim,
+      multiplier,
+      trendGuard: trendGuard === undefined ? undefined : trendGuard === 'on',
+      sensitivity,
+      densityBin,
+      densityBandwidth,
+      donut,
+    },
   };
 }
 

@@ -20,7 +20,7 @@ import { writeReports } from './reportFiles';
 const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
   [--variance nn|hc0|hc1|cluster] [--cluster COL] [--covariate COL …]
-  [--draws N] [--seed N] [--grid N] [--trim NUM] [--multiplier normal|rademacher]
+  [--draws N] [--seed N] [--grid N] [--trim NUM] [--multiplier normal|rademacher] [--trend-guard on|off]
   [--sensitivity 0.5,0.75,1,1.5,2|off] [--within COL] [--density-bin NUM] [--density-bandwidth NUM]
   [--donut NUM] [--json [--bins]] [--out REPORT.xlsx] [--html REPORT.html] [--force]
        cutline check FILE|FOLDER … (same options) --out-dir DIR [--format xlsx,html] [--jobs N] [--force]

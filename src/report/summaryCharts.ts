@@ -77,14 +77,14 @@ export function buildCharts(r: CheckResult, treatedName: string): ChartSpec[] {
       title: 'Scores around the cutoff',
       xLabel: 'score',
       yLabel: 'units per score unit',
-      alt: `Histogram of the score in ${bars.length} non-empty bins (${tk.bins_below} laid below the cutoff ${r.cutoff}, ${tk.bins_above} above); a pile-up just on one side would suggest sorting. Density test p = ${r.density ? pval(r.density.pvalue) : 'not computed'}.`,
+      alt: `Histogram of the score in ${bars.length} non-empty bins (${tk.bins_below} laid below the cutoff ${r.cutoff}, ${tk.bins_above} above); a pile-up just on one side would suggest sorting. Density test p = ${r.density?.pvalue !== undefined ? pval(r.density.pvalue) : 'not computed'}.`,
       bars,
       verticals: [{ x: r.cutoff, label: `cutoff ${r.cutoff}` }],
       table: `bins:${tk.name}`,
     });
   }
   const curves = r.outcomes
-    .map((o) => ({ label: o.name, points: o.validity.by_bandwidth.filter((b) => b.pvalue !== undefined).map((b) => ({ x: b.bandwidth, y: b.pvalue! })) }))
+    .map((o) => ({ label: o.name, points: (o.validity.by_bandwidth ?? []).filter((b) => b.pvalue !== undefined).map((b) => ({ x: b.bandwidth, y: b.pvalue! })) }))
     .filter((l) => l.points.length > 0);
   if (curves.length > 0) {
     charts.push({
@@ -93,7 +93,7 @@ export function buildCharts(r: CheckResult, treatedName: string): ChartSpec[] {
       xLabel: 'bandwidth (score units)',
       yLabel: 'p-value',
       alt:
-        `P-value of the outcome–treatment test at ${curves[0].points.length} bandwidths around the test bandwidth ${num(r.test_bandwidth.value)}, one line per outcome (${curves.map((c) => c.label).join(', ')}); ` +
+        `P-value of the outcome–treatment test (the headline: the larger of its observed and trend-removed versions) at ${curves[0].points.length} bandwidths around the test bandwidth ${num(r.test_bandwidth.value)}, one line per outcome (${curves.map((c) => c.label).join(', ')}); ` +
         'points below the dashed 0.05 line reject the design at that bandwidth.',
       lines: curves,
       horizontals: [{ y: 0.05, label: '0.05' }],

@@ -153,40 +153,51 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     ],
     note: `Jumps are the eligible side (${r.eligible} the cutoff) minus the other side; p-values are two-sided, robust bias-corrected. Effect = jump ÷ take-up jump.`,
   });
+  const dash = text('–');
   place({
     id: 'validity',
     title: 'Do the data contradict the design? Outcome–treatment test',
-    columns: ['outcome', 'p-value', 'Holm-adjusted p', 'verdict at 5%', 'statistic', '5% critical value', 'intervals', 'draws', 'bandwidth'],
+    columns: ['outcome', 'p-value', 'Holm-adjusted p', 'verdict at 5%', 'p observed', 'p trend removed', 'statistic', '5% critical value', 'intervals', 'draws', 'bandwidth'],
     rows: r.outcomes.map((o) => {
+      const v = o.validity;
+      if (!v.applicable) return [text(o.name), text('not applicable'), dash, text(`no test run: ${v.reason}`), dash, dash, dash, dash, dash, dash, cell(v.bandwidth)];
       const f = F.validity(od(o), refs, testCell.address);
+      const ob = v.observed;
       return [
         text(o.name),
-        cell(o.validity.pvalue, 'pvalue', f),
-        cell(o.validity.pvalue_holm, 'pvalue'),
-        text(o.validity.rejects ? 'contradicted' : 'not contradicted'),
-        cell(o.validity.statistic, 'number', F.detailField(f, 'statistic')),
-        cell(o.validity.critical_value, 'number', F.detailField(f, 'critical_value')),
-        cell(o.validity.intervals, 'integer'),
-        cell(o.validity.draws, 'integer'),
-        cell(o.validity.bandwidth, 'number'),
+        cell(v.pvalue, 'pvalue', f),
+        v.pvalue_holm === undefined ? dash : cell(v.pvalue_holm, 'pvalue'),
+        text(v.rejects ? 'contradicted' : 'not contradicted'),
+        cell(ob.pvalue, 'pvalue', F.detailField(f, 'pvalue_observed')),
+        v.trend_adjusted ? cell(v.trend_adjusted.pvalue, 'pvalue', F.detailField(f, 'pvalue_trend_adjusted')) : dash,
+        cell(ob.statistic, 'number', F.detailField(f, 'statistic')),
+        cell(ob.critical_value, 'number', F.detailField(f, 'critical_value')),
+        cell(ob.intervals, 'integer'),
+        cell(ob.draws, 'integer'),
+        cell(ob.bandwidth, 'number'),
       ];
     }),
-    note: 'Holm adjusts the p-values across the outcomes. A p-value at or below 0.05 means the data contradict the design.',
+    note:
+      'The p-value is the larger of the test on the observed outcomes (the published test) and the same test with each side’s trend in the score removed, when that applies; Holm adjusts it across the outcomes. At or below 0.05 the data contradict the design. Statistic and critical value: the observed version.',
   });
   place({
     id: 'sensitivity',
     title: 'The outcome–treatment test across bandwidths',
-    columns: ['outcome', 'multiple of the test bandwidth', 'bandwidth', 'p-value', 'verdict at 5%'],
+    columns: ['outcome', 'multiple of the test bandwidth', 'bandwidth', 'p-value', 'p observed', 'p trend removed', 'verdict at 5%'],
     rows: r.outcomes.flatMap((o) =>
-      o.validity.by_bandwidth.map((b) => [
-        text(o.name),
-        cell(b.multiple, 'plain'),
-        cell(b.bandwidth, 'number'),
-        b.pvalue === undefined
-          ? text(`cannot run: ${b.error ?? 'no result'}`)
-          : cell(b.pvalue, 'pvalue', F.validity(od(o), refs, b.multiple === 1 ? testCell.address : `${testCell.address}*${b.multiple}`)),
-        text(b.pvalue === undefined ? '' : b.rejects ? 'contradicted' : 'not contradicted'),
-      ]),
+      (o.validity.by_bandwidth ?? []).map((b) => {
+        const head = [text(o.name), cell(b.multiple, 'plain'), cell(b.bandwidth, 'number')];
+        if (b.error !== undefined) return [...head, text(`cannot run: ${b.error}`), dash, dash, text('')];
+        if (b.applicable === false || b.pvalue === undefined) return [...head, text('not applicable'), dash, dash, text(b.reason ?? 'the design is sharp in this window')];
+        const f = F.validity(od(o), refs, b.multiple === 1 ? testCell.address : `${testCell.address}*${b.multiple}`);
+        return [
+          ...head,
+          cell(b.pvalue, 'pvalue', f),
+          b.pvalue_observed === undefined ? dash : cell(b.pvalue_observed, 'pvalue'),
+          b.pvalue_trend_adjusted === undefined ? dash : cell(b.pvalue_trend_adjusted, 'pvalue'),
+          text(b.rejects ? 'contradicted' : 'not contradicted'),
+        ];
+      }),
     ),
   });
   if (r.density) {
@@ -208,7 +219,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
       title: 'Did units sort themselves across the cutoff? Density of the score',
       columns: ['test', 'density below', 'density above', 'log ratio', 'std. err.', 'p-value', 'bandwidth', ''],
       rows,
-      note: d.caution,
+      note: d.method === 'none' ? `No density test is reliable here: ${d.unreliable ?? 'see the warnings'}. ${d.caution}` : d.caution,
     });
   }
   if (r.balance && r.balance.length > 0) {
@@ -352,21 +363,27 @@ function verdictSentences(r: CheckResult): Verdict[] {
   );
   for (const o of r.outcomes) {
     const e = o.effect;
+    const v = o.validity;
     const covers = e.ci_robust[0] <= 0 && e.ci_robust[1] >= 0;
-    say(
-      `${o.name}: the effect for compliers is ${num(e.estimate)} (robust 95% interval ${num(e.ci_robust[0])} to ${num(e.ci_robust[1])}${covers ? ', which includes no effect' : ''}). ` +
-        (o.validity.rejects
-          ? `The outcome–treatment test rejects (p ${pvalWords(o.validity.pvalue)}): the data contradict the design for this outcome.`
-          : `The outcome–treatment test does not reject (p ${pvalWords(o.validity.pvalue)}): the data do not contradict the design for this outcome, which is not proof that it holds.`),
-      o.validity.rejects,
-    );
+    const effect = `${o.name}: the effect for compliers is ${num(e.estimate)} (robust 95% interval ${num(e.ci_robust[0])} to ${num(e.ci_robust[1])}${covers ? ', which includes no effect' : ''}). `;
+    if (!v.applicable) say(`${effect}The outcome–treatment test was not run: ${v.reason}.`);
+    else
+      say(
+        effect +
+          (v.rejects
+            ? `The outcome–treatment test rejects (p ${pvalWords(v.pvalue)}): the data contradict the design for this outcome.`
+            : `The outcome–treatment test does not reject (p ${pvalWords(v.pvalue)}): the data do not contradict the design for this outcome, which is not proof that it holds.`),
+        v.rejects,
+      );
   }
-  if (r.density) {
+  const dp = r.density?.pvalue;
+  if (r.density && dp === undefined) say(`No test of the score's density is reliable here: ${r.density.unreliable ?? 'see the warnings'}.`);
+  if (dp !== undefined) {
     say(
-      r.density.pvalue <= 0.05
-        ? `The density of the score jumps at the cutoff (p ${pvalWords(r.density.pvalue)}): a sign that units may have sorted themselves across it.`
-        : `The density of the score shows no significant jump at the cutoff (p ${pvalWords(r.density.pvalue)}).`,
-      r.density.pvalue <= 0.05,
+      dp <= 0.05
+        ? `The density of the score jumps at the cutoff (p ${pvalWords(dp)}): a sign that units may have sorted themselves across it.`
+        : `The density of the score shows no significant jump at the cutoff (p ${pvalWords(dp)}).`,
+      dp <= 0.05,
     );
   }
   for (const b of r.balance ?? []) {
@@ -397,8 +414,8 @@ function headline(r: CheckResult): Headline {
       effect: o.effect.estimate,
       ci_robust: o.effect.ci_robust,
       effect_pvalue: o.effect.pvalue,
-      validity_pvalue: o.validity.pvalue,
-      rejects: o.validity.rejects,
+      validity_pvalue: o.validity.applicable ? o.validity.pvalue : undefined,
+      rejects: o.validity.applicable ? o.validity.rejects : undefined,
     })),
     density_pvalue: r.density?.pvalue,
     balance_min_holm: holm.length ? Math.min(...holm) : undefined,

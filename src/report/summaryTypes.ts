@@ -119,7 +119,8 @@ export interface Headline {
   bandwidth: number;
   takeup: number;
   takeup_pvalue: number;
-  outcomes: Array<{ name: string; effect: number; ci_robust: [number, number]; effect_pvalue: number; validity_pvalue: number; rejects: boolean }>;
+  /** `validity_pvalue` and `rejects` are absent when the test does not apply (a sharp design). */
+  outcomes: Array<{ name: string; effect: number; ci_robust: [number, number]; effect_pvalue: number; validity_pvalue?: number; rejects?: boolean }>;
   density_pvalue?: number;
   balance_min_holm?: number;
 }

@@ -22,6 +22,13 @@ const result = runCheck(input, { ...options, bins: true });
 const data = { sheet: 'My data', firstRow: 2, lastRow: 401, columns: { score: 0, treated: 1, y: 2, age: 3 } };
 const model = buildSummary(result, { source: 'design.csv', data, options, names: { score: 'score', treated: 'treated' }, takenSheetNames: ['My data'] });
 
+/** The first outcome's validity report (the test design is fuzzy, so the test applies). */
+const validity = (r = result) => {
+  const v = r.outcomes[0].validity;
+  if (!v.applicable) throw new Error('the test design should give an applicable validity test');
+  return v;
+};
+
 const allCells = () => [...model.tables, ...model.plotTables].flatMap((t) => t.rows.flat().map((c) => ({ t, c })));
 
 describe('formula text', () => {
@@ -42,7 +49,9 @@ describe('summary model', () => {
     expect(est.rows[2][1].value).toBe(result.outcomes[0].effect.estimate);
     expect(est.rows[2][5].value).toBe(result.outcomes[0].effect.ci_robust[0]);
     const val = model.tables.find((t) => t.id === 'validity')!;
-    expect(val.rows[0][1].value).toBe(result.outcomes[0].validity.pvalue);
+    expect(val.rows[0][1].value).toBe(validity().pvalue);
+    expect(val.rows[0][4].value).toBe(validity().observed.pvalue);
+    expect(val.rows[0][6].value).toBe(validity().observed.statistic);
     const bal = model.tables.find((t) => t.id === 'balance')!;
     expect(bal.rows[0][2].value).toBe(result.balance![0].pvalue);
     expect(model.settings.find((s) => s.key === 'cutoff')!.value).toBe(0);
@@ -84,7 +93,7 @@ describe('summary model', () => {
 
   test('verdicts in plain words; a rejection is marked as a concern and the non-rejection is not called proof', () => {
     const o = result.outcomes[0];
-    const forced = (pvalue: number) => ({ ...result, outcomes: [{ ...o, validity: { ...o.validity, pvalue, rejects: pvalue <= 0.05 } }] });
+    const forced = (pvalue: number) => ({ ...result, outcomes: [{ ...o, validity: { ...validity(), pvalue, rejects: pvalue <= 0.05 } }] });
     const ctx = { source: 'design.csv', data, options, names: { score: 'score', treated: 'treated' } };
     const m1 = buildSummary(forced(0.4), ctx);
     expect(m1.verdicts[1]).toEqual({
@@ -94,7 +103,12 @@ describe('summary model', () => {
     const m2 = buildSummary(forced(0.012), ctx);
     expect(m2.verdicts[1].concern).toBe(true);
     expect(m2.verdicts[1].text).toMatch(/rejects \(p = 0\.012\): the data contradict the design for this outcome/);
-    expect(model.verdicts[1].concern).toBe(result.outcomes[0].validity.rejects);
+    expect(model.verdicts[1].concern).toBe(validity().rejects);
+    const sharp = { ...result, outcomes: [{ ...o, validity: { applicable: false as const, reason: 'take-up is 0 or 1 on each side', bandwidth: 0.3, counts: { below: 9, above: 9 }, warnings: [] } }] };
+    const m3 = buildSummary(sharp, ctx);
+    expect(m3.verdicts[1]).toEqual({ text: expect.stringMatching(/The outcome–treatment test was not run: take-up is 0 or 1 on each side\.$/), concern: false });
+    expect(m3.tables.find((t) => t.id === 'validity')!.rows[0][1].value).toBe('not applicable');
+    expect(m3.headline.outcomes[0].validity_pvalue).toBeUndefined();
     expect(m2.tables.find((t) => t.id === 'validity')!.rows[0][3].value).toBe('contradicted');
   });
 
@@ -136,7 +150,7 @@ describe('summary model', () => {
     const hist = model.charts.find((c) => c.id === 'histogram')!;
     expect(hist.bars!.reduce((s, b) => s + b.count, 0)).toBe(400);
     const sens = model.charts.find((c) => c.id === 'sensitivity')!;
-    expect(sens.lines![0].points.length).toBe(result.outcomes[0].validity.by_bandwidth.length);
+    expect(sens.lines![0].points.length).toBe(validity().by_bandwidth.length);
     for (const c of model.charts) {
       expect(c.title.length).toBeGreaterThan(5);
       expect(c.alt.length).toBeGreaterThan(40);
