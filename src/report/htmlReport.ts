@@ -29,7 +29,8 @@ function tableHtml(t: SummaryTable, extraClass = ''): string {
         '<tr>' +
         r
           .map((c, i) => {
-            const numeric = typeof c.value === 'number';
+            // A dash stands for a number that does not exist: aligned with the numbers.
+            const numeric = typeof c.value === 'number' || c.value === '–';
             const cls = numeric ? ' class="num"' : '';
             const tip = c.formula ? ` title="${esc('=' + c.formula)}"` : '';
             return i === 0 ? `<th scope="row"${cls}${tip}>${esc(cellText(c))}</th>` : `<td${cls}${tip}>${esc(cellText(c))}</td>`;
