@@ -82,7 +82,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
   const at = (): string => F.cellAddress(row++, 1);
   const cutoffCell = { key: 'cutoff', label: 'Cutoff (score at which eligibility changes)', value: r.cutoff, address: at() } as SettingRow;
   const optionsStart = SETTINGS_ROW + 4;
-  const optionsEnd = optionsStart + 9;
+  const optionsEnd = optionsStart + 10;
   const settingsRange = `${F.cellAddress(optionsStart, 0)}:${F.cellAddress(optionsEnd, 1)}`;
   const firstOutcome = { score, treated, outcome: col(r.outcomes[0].name) };
   const bwCell: SettingRow = {
@@ -116,6 +116,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     opt('grid', 'Grid of outcome values in the test', v.grid, 'integer'),
     opt('trim', 'Trimming of the test', v.trim, 'number'),
     opt('multiplier', 'Multipliers of the test', v.multiplier),
+    opt('trend_guard', 'The test also run with each side’s trend removed (the larger p-value counts)', ctx.options.trendGuard === false ? 'off' : 'on'),
     opt('sensitivity', 'Multiples of the test bandwidth shown', sensitivity.length ? sensitivity.join(', ') : 'off'),
   ];
   const refs: F.SettingRefs = { cutoff: cutoffCell.address, bandwidth: bwCell.address, settings: settingsRange };

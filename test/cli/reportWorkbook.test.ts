@@ -75,7 +75,7 @@ test('the summary holds the engine numbers, the formulas as text beside them, an
   expect(eff.getCell(7).value).toBe(json.outcomes[0].effect.ci_robust[1]);
   // Beside the values (from column N, right of what is printed): the formula text that computes them
   // live, referencing the data sheet and the settings cells.
-  expect(String(eff.getCell(14).value)).toMatch(/^CUTLINE\.EFFECT\(Readings!\$A\$2:\$A\$401, Readings!\$B\$2:\$B\$401, Readings!\$C\$2:\$C\$401, \$B\$6, \$B\$7, \$A\$9:\$B\$18\)$/);
+  expect(String(eff.getCell(14).value)).toMatch(/^CUTLINE\.EFFECT\(Readings!\$A\$2:\$A\$401, Readings!\$B\$2:\$B\$401, Readings!\$C\$2:\$C\$401, \$B\$6, \$B\$7, \$A\$9:\$B\$19\)$/);
   expect(rowOf('cutoff').getCell(2).value).toBe(0);
   expect(rowOf('bandwidth').getCell(2).value).toBe(json.bandwidth.value);
   expect(String(ws.getCell('A2').value)).toMatch(/formulas beside them are text/);
