@@ -367,7 +367,7 @@ function verdictSentences(r: CheckResult): Verdict[] {
     const v = o.validity;
     const covers = e.ci_robust[0] <= 0 && e.ci_robust[1] >= 0;
     const effect = `${o.name}: the effect for compliers is ${num(e.estimate)} (robust 95% interval ${num(e.ci_robust[0])} to ${num(e.ci_robust[1])}${covers ? ', which includes no effect' : ''}). `;
-    if (!v.applicable) say(`${effect}The outcome–treatment test was not run: ${v.reason}.`);
+    if (!v.applicable) say(`${effect}The outcome–treatment test was not run: ${v.reason.replace(/\.$/, '')}.`);
     else
       say(
         effect +
