@@ -14,7 +14,7 @@ import { CutlineError } from '../engine/errors';
 import { indexCsv, indexHtml, IndexRow } from './batchIndex';
 import { CheckSpec } from './checkFile';
 import { checkOutputPath, writeAtomic } from './outputPaths';
-import { ReportRequest } from './reportFiles';
+import type { ReportRequest } from './reportFiles';
 
 const INPUT = /\.(csv|xlsx|xlsm)$/i;
 

@@ -15,7 +15,7 @@ import { MAX_DRAWS, MAX_GRID } from '../engine/validity/validityTest';
 import { labelColumn, numericColumn } from '../input/columns';
 import { choiceOption, numberOption, one, ParsedArgs, required } from './args';
 import { readTable } from './readTable';
-import { SourceFile } from './reportFiles';
+import type { SourceFile } from './reportFiles';
 
 export interface CheckSpec {
   scoreName: string;

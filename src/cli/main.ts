@@ -8,14 +8,11 @@ import { isMainThread, workerData } from 'worker_threads';
 import type { CheckResult } from '../engine/check/check';
 import { CutlineError } from '../engine/errors';
 import { numberOption, one, parseArgs, ParsedArgs } from './args';
-import { runBatch } from './batch';
-import { startBatchWorker } from './batchWorker';
 import { checkFile, parseCheckSpec } from './checkFile';
 import { withFlags } from './flagHints';
 import { toJson } from './json';
 import { checkOutputPath } from './outputPaths';
 import { readable } from './readable';
-import { writeReports } from './reportFiles';
 
 const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
@@ -60,6 +57,8 @@ async function batch(args: ParsedArgs): Promise<number> {
   const formats = formatsOption(one(args, 'format'));
   const jobs = numberOption(args, 'jobs', (v) => (Number.isInteger(v) && v >= 1 ? null : 'must be a whole number of at least 1'));
   const spec = parseCheckSpec(args);
+  // Loaded on demand, like the report writers: a plain check does not pay for d3, resvg or workers.
+  const { runBatch } = await import('./batch');
   const { rows, failed } = await runBatch({ inputs: args.files, outDir, formats, force: args.flags.has('force'), jobs, spec, script: __filename });
   process.stdout.write(`${rows.length} files: ${rows.length - failed} checked, ${failed} failed; index in ${outDir}/index.html and index.csv\n`);
   for (const r of rows) if (r.error) process.stderr.write(`cutline: ${r.file}: ${r.error}\n`);
@@ -92,6 +91,7 @@ async function check(args: ParsedArgs): Promise<number> {
   if (args.flags.has('json')) process.stdout.write(JSON.stringify(toJson(bins ? c.result : withoutPlotData(c.result)), null, 2) + '\n');
   else process.stdout.write(readable(file, c.result));
   if (reports) {
+    const { writeReports } = await import('./reportFiles');
     await writeReports(c.source, c.result, spec.options, c.names, { xlsx, html });
     if (!args.flags.has('json')) process.stdout.write(`\nReports written: ${[xlsx, html].filter((p) => p !== undefined).join(', ')}\n`);
   }
@@ -123,7 +123,7 @@ async function main(argv: string[]): Promise<number> {
 }
 
 if (!isMainThread && (workerData as { cutlineBatchWorker?: boolean } | null)?.cutlineBatchWorker) {
-  startBatchWorker();
+  void import('./batchWorker').then((w) => w.startBatchWorker());
 } else {
   main(process.argv.slice(2)).then((code) => {
     // Exit once standard output has been flushed, without waiting for the heap of
