@@ -3,7 +3,7 @@
  * without a library so that every message is Cutline's own and names the
  * option. Values come as `--name value` or `--name=value`.
  */
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 
 export interface OptionSpec {
   /** Takes a value (false: a flag). */

@@ -10,7 +10,7 @@ import * as fs from 'fs';
 import * as os from 'os';
 import * as path from 'path';
 import { Worker } from 'worker_threads';
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 import { indexCsv, indexHtml, IndexRow } from './batchIndex';
 import { CheckSpec } from './checkFile';
 import { checkOutputPath, writeAtomic } from './outputPaths';

@@ -6,12 +6,7 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { BANDWIDTH_RULES } from '../engine/bandwidth/bandwidth';
-import { CheckInput, CheckOptions, CheckResult, runCheck } from '../engine/check/check';
-import { CutlineError } from '../engine/errors';
-import { KERNEL_NAMES } from '../engine/fit/kernels';
-import { VARIANCE_NAMES } from '../engine/fit/residuals';
-import { MAX_DRAWS, MAX_GRID } from '../engine/validity/validityTest';
+import { BANDWIDTH_RULES, CheckInput, CheckOptions, CheckResult, CutlineError, KERNEL_NAMES, MAX_DRAWS, MAX_GRID, runCheck, VARIANCE_NAMES } from '../engine';
 import { labelColumn, numericColumn } from '../input/columns';
 import { choiceOption, numberOption, one, ParsedArgs, required } from './args';
 import { readTable } from './readTable';

@@ -5,10 +5,10 @@
  */
 import * as fs from 'fs';
 import { isMainThread, workerData } from 'worker_threads';
-import type { CheckResult } from '../engine/check/check';
-import { CutlineError } from '../engine/errors';
+import { CheckResult, CutlineError } from '../engine';
 import { numberOption, one, parseArgs, ParsedArgs } from './args';
 import { checkFile, parseCheckSpec } from './checkFile';
+import { errorLine } from './errorLine';
 import { withFlags } from './flagHints';
 import { toJson } from './json';
 import { checkOutputPath } from './outputPaths';
@@ -16,7 +16,7 @@ import { readable } from './readable';
 
 const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
-  [--variance nn|hc0|hc1|cluster] [--cluster COL] [--covariate COL …]
+  [--variance neighbours|hc0|hc1|cluster] [--cluster COL] [--covariate COL …]
   [--draws N] [--seed N] [--grid N] [--trim NUM] [--multiplier normal|rademacher] [--trend-guard on|off]
   [--sensitivity 0.5,0.75,1,1.5,2|off] [--within COL] [--density-bin NUM] [--density-bandwidth NUM]
   [--donut NUM] [--json [--bins]] [--out REPORT.xlsx] [--html REPORT.html] [--force]
@@ -114,7 +114,7 @@ async function main(argv: string[]): Promise<number> {
     return await check(args);
   } catch (e) {
     if (e instanceof CutlineError) {
-      process.stderr.write(`cutline: ${withFlags(e.message).replace(/\s*\n\s*/g, ' ')}\n`);
+      process.stderr.write(`cutline: ${withFlags(errorLine(e))}\n`);
       return 2;
     }
     process.stderr.write(`cutline: internal error: ${e instanceof Error ? e.message : String(e)}\n`);

@@ -7,7 +7,7 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 
 function real(p: string): string {
   try {

@@ -6,8 +6,7 @@
  * added; for a CSV input it holds a data sheet and the summary.
  */
 import * as path from 'path';
-import type { CheckOptions, CheckResult } from '../engine/check/check';
-import { CutlineError } from '../engine/errors';
+import { CheckOptions, CheckResult, CutlineError } from '../engine';
 import { Table } from '../input/table';
 import { htmlReport } from '../report/htmlReport';
 import { buildSummary, DataRanges } from '../report/summaryModel';

@@ -8,8 +8,7 @@
  *
  * @example buildCharts(runCheck(input, { cutoff: 60, bins: true }), 'retrofit').map((c) => c.id)
  */
-import type { CheckResult } from '../engine/check/check';
-import type { BinnedSeries } from '../engine/check/designChecks';
+import type { BinnedSeries, CheckResult } from '../engine';
 import { num, pval } from './numberText';
 import { ChartSpec } from './summaryTypes';
 

@@ -16,9 +16,7 @@
  *   const m = buildSummary(r, { source: 'retrofit.csv', data, options: { cutoff: 60 } });
  *   m.tables[0].rows[0][1].formula; // 'CUTLINE.TAKEUP(Data!$A$2:$A$6001, …)'
  */
-import type { CheckOptions, CheckResult, EstimateSummary, OutcomeResult } from '../engine/check/check';
-import { DEFAULT_SENSITIVITY } from '../engine/check/check';
-import { resolveValidityOptions } from '../engine/validity/validityTest';
+import { CheckOptions, CheckResult, DEFAULT_SENSITIVITY, EstimateSummary, OutcomeResult, resolveValidityOptions } from '../engine';
 import { CAUTIONS } from './cautions';
 import * as F from './formulas';
 import { num, pval } from './numberText';
