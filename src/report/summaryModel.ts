@@ -139,6 +139,9 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     cell(e.pvalue, 'pvalue', F.detailField(formula, 'pvalue')),
   ];
   const od = (o: OutcomeResult) => ({ score, treated, outcome: col(o.name) });
+  // An outcome's own take-up (its rows may drop missing outcomes): only the estimate has a formula.
+  const ownTakeupRow = (label: string, e: EstimateSummary, formula: string): SummaryCell[] =>
+    estimateRow(label, e, formula).map((c, i) => (i <= 1 ? c : { value: c.value, format: c.format }));
   place({
     id: 'estimates',
     title: 'Take-up and effects at the cutoff',
@@ -146,11 +149,12 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     rows: [
       estimateRow('Take-up jump (first stage)', r.takeup, F.takeup({ score, treated }, refs)),
       ...r.outcomes.flatMap((o) => [
+        ownTakeupRow(`${o.name}: take-up jump on its rows`, o.takeup, F.detailField(F.effect(od(o), refs), 'takeup')),
         estimateRow(`${o.name}: jump at the cutoff`, o.jump, F.jump({ score, values: col(o.name) }, refs)),
         estimateRow(`${o.name}: effect for compliers`, o.effect, F.effect(od(o), refs)),
       ]),
     ],
-    note: `Jumps are the eligible side (${r.eligible} the cutoff) minus the other side; p-values are two-sided, robust bias-corrected. Effect = jump ÷ take-up jump.`,
+    note: `Jumps are the eligible side (${r.eligible} the cutoff) minus the other side; p-values are two-sided, robust bias-corrected. The first stage uses the ${r.takeup_rows.used} rows with a score and treatment; each outcome's effect for compliers is its jump divided by the take-up jump on its own rows.`,
   });
   const dash = text('–');
   place({

@@ -46,8 +46,9 @@ describe('summary model', () => {
     const est = model.tables.find((t) => t.id === 'estimates')!;
     expect(est.rows[0][1].value).toBe(result.takeup.estimate);
     expect(est.rows[0][7].value).toBe(result.takeup.pvalue);
-    expect(est.rows[2][1].value).toBe(result.outcomes[0].effect.estimate);
-    expect(est.rows[2][5].value).toBe(result.outcomes[0].effect.ci_robust[0]);
+    expect(est.rows[1][1].value).toBe(result.outcomes[0].takeup.estimate);
+    expect(est.rows[3][1].value).toBe(result.outcomes[0].effect.estimate);
+    expect(est.rows[3][5].value).toBe(result.outcomes[0].effect.ci_robust[0]);
     const val = model.tables.find((t) => t.id === 'validity')!;
     expect(val.rows[0][1].value).toBe(validity().pvalue);
     expect(val.rows[0][4].value).toBe(validity().observed.pvalue);
