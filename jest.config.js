@@ -8,11 +8,13 @@ module.exports = {
   testMatch: ['**/*.test.ts'],
   transform: {
     '^.+\\.ts$': ['ts-jest', { isolatedModules: true, diagnostics: false }],
+    // d3 ships ES modules only: turned into CommonJS by esbuild (test/helpers/esmTransform.js).
+    '/node_modules/(d3-[^/]+|internmap)/.+\\.m?js$': '<rootDir>/test/helpers/esmTransform.js',
     // Dependencies of office-addin-mock published only as ES modules (see the file).
     '^.+\\.m?js$': '<rootDir>/test/helpers/esmToCommonjs.cjs',
   },
-  // Ignored: a file under node_modules unless it belongs to one of those packages (at any depth).
-  transformIgnorePatterns: [`/node_modules/(?!.*/node_modules/(${ESM_ONLY.join('|')})/)(?!(${ESM_ONLY.join('|')})/)`],
+  // Ignored: a file under node_modules unless it is d3's or belongs to one of those packages (at any depth).
+  transformIgnorePatterns: [`/node_modules/(?!(d3-[^/]+|internmap)/)(?!.*/node_modules/(${ESM_ONLY.join('|')})/)(?!(${ESM_ONLY.join('|')})/)`],
   reporters: ['default', '<rootDir>/test/summaryReporter.js'],
   testTimeout: 60000,
 };

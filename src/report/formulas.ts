@@ -38,6 +38,7 @@ export const DETAIL_LABELS: Record<string, string> = {
   pvalue: 'p-value (robust)',
   statistic: 'statistic (observed)',
   critical_value: '5% critical value (observed)',
+  takeup: 'take-up jump',
   pvalue_observed: 'p-value, observed outcomes',
   pvalue_trend_adjusted: 'p-value, trend-adjusted outcomes',
   intervals: 'intervals',

@@ -16,8 +16,7 @@
  *   const m = buildSummary(r, { source: 'retrofit.csv', data, options: { cutoff: 60 } });
  *   m.tables[0].rows[0][1].formula; // 'CUTLINE.TAKEUP(Data!$A$2:$A$6001, …)'
  */
-import type { CheckOptions, CheckResult, EstimateSummary, OutcomeResult } from '../engine';
-import { DEFAULT_SENSITIVITY, resolveValidityOptions } from '../engine';
+import { CheckOptions, CheckResult, DEFAULT_SENSITIVITY, EstimateSummary, OutcomeResult, resolveValidityOptions } from '../engine';
 import { CAUTIONS } from './cautions';
 import * as F from './formulas';
 import { num, pval } from './numberText';
@@ -142,6 +141,9 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     cell(e.pvalue, 'pvalue', F.detailField(formula, 'pvalue')),
   ];
   const od = (o: OutcomeResult) => ({ score, treated, outcome: col(o.name) });
+  // An outcome's own take-up (its rows may drop missing outcomes): only the estimate has a formula.
+  const ownTakeupRow = (label: string, e: EstimateSummary, formula: string): SummaryCell[] =>
+    estimateRow(label, e, formula).map((c, i) => (i <= 1 ? c : { value: c.value, format: c.format }));
   place({
     id: 'estimates',
     title: 'Take-up and effects at the cutoff',
@@ -149,11 +151,12 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     rows: [
       estimateRow('Take-up jump (first stage)', r.takeup, F.takeup({ score, treated }, refs)),
       ...r.outcomes.flatMap((o) => [
+        ownTakeupRow(`${o.name}: take-up jump on its rows`, o.takeup, F.detailField(F.effect(od(o), refs), 'takeup')!),
         estimateRow(`${o.name}: jump at the cutoff`, o.jump, F.jump({ score, values: col(o.name) }, refs)),
         estimateRow(`${o.name}: effect for compliers`, o.effect, F.effect(od(o), refs)),
       ]),
     ],
-    note: `Jumps are the eligible side (${r.eligible} the cutoff) minus the other side; p-values are two-sided, robust bias-corrected. Effect = jump ÷ take-up jump.`,
+    note: `Jumps are the eligible side (${r.eligible} the cutoff) minus the other side; p-values are two-sided, robust bias-corrected. The first stage uses the ${r.takeup_rows.used} rows with a score and treatment; each outcome's effect for compliers is its jump divided by the take-up jump on its own rows.`,
   });
   const dash = text('–');
   place({
