@@ -88,7 +88,7 @@ export function planSheet(m: SummaryModel, opts: { source: string }): LiveSheetP
 
   text(1, 0, m.title, 'title');
   text(2, 0, LIVE_NOTE, 'note');
-  text(3, 0, `Data: ${opts.source}`);
+  text(3, 0, `Data: ${opts.source} — ${m.dataLine}`);
 
   // Settings: key, value (or formula), meaning.
   const firstSettingRow = Math.min(...m.settings.map((s) => rowOf(s.address)));
