@@ -188,7 +188,7 @@ const fmt = (v: number): string => Number(v.toPrecision(4)).toString();
  * Cutline then uses the estimates' bandwidth times n^(−1/20) and says so. A
  * value that leaves fewer than 2 distinct scores on a side is widened (bandwidthTies.ts).
  */
-function testBandwidth(score: Float64Array, treated: Float64Array, cutoff: number, kernel: KernelName, h: number, warnings: string[]): number {
+export function testBandwidth(score: Float64Array, treated: Float64Array, cutoff: number, kernel: KernelName, h: number, warnings: string[]): number {
   const shrink = Math.pow(score.length, -1 / 20);
   let value: number;
   try {
@@ -239,13 +239,13 @@ function complierSummary(
   return out;
 }
 
-function requireVaries(v: Float64Array, what: string, why: string): void {
+export function requireVaries(v: Float64Array, what: string, why: string): void {
   for (let i = 1; i < v.length; i++) if (v[i] !== v[0]) return;
   throw new CutlineError(`${what} is constant (every used row is ${v[0]}): ${why}`);
 }
 
 /** Read off the sorted order that every window uses anyway: its ends and where the cutoff falls. */
-function checkSides(score: Float64Array, cutoff: number): void {
+export function checkSides(score: Float64Array, cutoff: number): void {
   const order = sortedOrder(score);
   const lo = score[order[0]];
   const hi = score[order[order.length - 1]];
@@ -437,7 +437,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
 }
 
 /** Rows inside the donut |score − cutoff| < r (missing scores are left to the listwise rule). */
-function donutMask(score: DataColumn, cutoff: number, r?: number): { mask: Uint8Array; radius: number; excluded: number } | undefined {
+export function donutMask(score: DataColumn, cutoff: number, r?: number): { mask: Uint8Array; radius: number; excluded: number } | undefined {
   if (r === undefined) return undefined;
   if (!(r > 0) || !Number.isFinite(r)) throw new CutlineError(`--donut must be a positive number, got ${r}`);
   const mask = new Uint8Array(score.values.length);

@@ -1,0 +1,518 @@
+/**
+ * The engine's public API (docs/engine-api.md): one entry point per worksheet
+ * function, plus the whole check. Faces import the engine only from here.
+ *
+ * TEMPORARY (branch i10): a minimal adapter over the existing engine modules,
+ * written to the names of docs/engine-api.md until the real index lands on
+ * main. Every entry point is composed of the same steps as `runCheck`, so a
+ * worksheet formula and `cutline check` give the same numbers.
+ */
+import { BandwidthRule, chooseBandwidth } from './bandwidth/bandwidth';
+import { donutMask, testBandwidth } from './check/check';
+import { densitySection } from './check/designChecks';
+import { complierCdf, complierDensity } from './compliers/complierDistributions';
+import { permutationBalanceTest } from './covariates/covariatePermutation';
+import { compact, completeRows } from './data/listwise';
+import { CutlineError } from './errors';
+import { applyWeights, boundaryWindow } from './fit/boundaryWindow';
+import { Estimate } from './fit/estimate';
+import { estimatesAtCutoff } from './fit/estimatesAtCutoff';
+import { jumpAt } from './fit/jumpAt';
+import { KernelName, KERNEL_NAMES } from './fit/kernels';
+import { VarianceName, VARIANCE_NAMES } from './fit/residuals';
+import { binnedMeans, BinnedMean } from './plots/binnedMeans';
+import { MultiplierName } from './validity/validityBootstrap';
+import { validityByBandwidth, validityTest, ValidityAtBandwidth, verdictWarnings } from './validity/validityTest';
+
+export { CutlineError } from './errors';
+export { runCheck } from './check/check';
+export type { CheckInput, CheckOptions, CheckResult } from './check/check';
+export type { Estimate } from './fit/estimate';
+export { BANDWIDTH_RULES } from './bandwidth/bandwidth';
+export type { BandwidthRule } from './bandwidth/bandwidth';
+export { KERNEL_NAMES } from './fit/kernels';
+export type { KernelName } from './fit/kernels';
+export { VARIANCE_NAMES } from './fit/residuals';
+export type { VarianceName } from './fit/residuals';
+export type { MultiplierName } from './validity/validityBootstrap';
+export { MAX_DRAWS, MAX_GRID } from './validity/validityTest';
+export type { BinnedMean } from './plots/binnedMeans';
+
+type Column = ArrayLike<number>;
+
+/** Per-argument missing masks (1 = missing). */
+export interface Missing {
+  score?: Uint8Array;
+  treated?: Uint8Array;
+  outcome?: Uint8Array;
+  values?: Uint8Array;
+  covariate?: Uint8Array;
+  clusters?: Uint8Array;
+}
+
+export interface EstimateOptions {
+  bandwidth?: number;
+  rule?: BandwidthRule;
+  kernel?: KernelName;
+  variance?: VarianceName;
+  clusters?: Int32Array;
+  eligible?: 'above' | 'below';
+  donut?: number;
+  level?: number;
+  missing?: Missing;
+}
+
+export interface ValidityOptions extends EstimateOptions {
+  draws?: number;
+  seed?: number;
+  grid?: number;
+  trim?: number;
+  multiplier?: MultiplierName;
+  /** Multiples of the test bandwidth for the by-bandwidth table; [] (default) for the test bandwidth alone. */
+  sensitivity?: number[];
+}
+
+/** What every result carries. */
+export interface Common {
+  bandwidth: number;
+  counts: { below: number; above: number };
+  rows: { used: number; dropped: number };
+  warnings: string[];
+}
+
+export type EstimateResult = Estimate & Common & { eligible: 'above' | 'below' };
+
+export interface EffectResult extends Common {
+  effect: Estimate;
+  takeup: Estimate;
+  jump: Estimate;
+  eligible: 'above' | 'below';
+}
+
+export interface BandwidthResult extends Common {
+  rule: BandwidthRule | 'typed' | 'undersmoothed mse';
+}
+
+export interface ComplierCurveResult extends Common {
+  arm: 0 | 1;
+  at: number[];
+  /** The CDF or density at each `at`, in the order given. */
+  values: number[];
+  /** Stretches where the CDF falls or the density is negative. */
+  violations: Array<{ from: number; to: number }>;
+}
+
+export interface ValidityReport extends Common {
+  pvalue: number;
+  statistic: number;
+  critical_value: number;
+  intervals: number;
+  draws: number;
+  seed: number;
+  worst: { arm: 0 | 1; from: number; to: number; t: number };
+  by_bandwidth: ValidityAtBandwidth[];
+  eligible: 'above' | 'below';
+}
+
+export interface DensityReport extends Common {
+  method: 'local_polynomial' | 'mccrary';
+  log_ratio: number;
+  se: number;
+  pvalue: number;
+  mccrary_pvalue?: number;
+  local_polynomial_pvalue?: number;
+}
+
+export interface BalanceReport extends Common {
+  jump: number;
+  se: number;
+  pvalue: number;
+  permutation_pvalue?: number;
+  q?: number;
+}
+
+export interface BinsReport extends Omit<Common, 'bandwidth'> {
+  bins: BinnedMean[];
+  binsBelow: number;
+  binsAbove: number;
+}
+
+function fail(code: string, argument: string, message: string, index?: number): never {
+  throw Object.assign(new CutlineError(message), { code, argument, index });
+}
+
+const MASK_OF: Record<string, keyof Missing> = { score: 'score', treated: 'treated', outcome: 'outcome', values: 'values', covariate: 'covariate' };
+
+/** Columns of equal length, finite where not missing, treated 0/1 (the checks of `checkColumns`). */
+function checkColumns(cols: Array<[string, Column]>, missing: Missing = {}): void {
+  const n = cols[0][1].length;
+  for (const [name, c] of cols) {
+    if (c.length !== n) fail('length', name, `${name} has ${c.length} rows but ${cols[0][0]} has ${n}`);
+    const m = missing[MASK_OF[name]];
+    for (let i = 0; i < c.length; i++) {
+      if (m?.[i]) continue;
+      const v = c[i];
+      if (typeof v !== 'number' || !Number.isFinite(v)) fail('bad-value', name, `${name}, row ${i + 1}: not a finite number`, i);
+      if (name === 'treated' && v !== 0 && v !== 1) fail('bad-value', name, `treated, row ${i + 1}: must be 0 or 1, found ${v}`, i);
+    }
+  }
+}
+
+function resolve(o: EstimateOptions): { kernel: KernelName; variance: VarianceName } {
+  const kernel = o.kernel ?? 'triangular';
+  const variance = o.variance ?? 'nn';
+  if (!KERNEL_NAMES.includes(kernel)) fail('option', 'kernel', `kernel must be one of ${KERNEL_NAMES.join(', ')}; got "${kernel}"`);
+  if (!VARIANCE_NAMES.includes(variance)) fail('option', 'variance', `variance must be one of ${VARIANCE_NAMES.join(', ')}; got "${variance}"`);
+  if (variance === 'cluster' && !o.clusters) fail('option', 'variance', 'the cluster variance needs cluster codes');
+  return { kernel, variance };
+}
+
+interface Rows {
+  rows: Int32Array;
+  dropped: number;
+  pick<T extends Float64Array | Int32Array>(v: T): T;
+}
+
+function f64(c: Column): Float64Array {
+  return c instanceof Float64Array ? c : Float64Array.from(c);
+}
+
+/** Listwise rows of the masks, outside the donut. */
+function listwise(n: number, masks: Array<Uint8Array | undefined>, donut?: Uint8Array): Rows {
+  const { rows, dropped } = completeRows(n, [...masks, donut]);
+  if (rows.length === 0) fail('too-few', 'score', 'no row has every value this calculation needs');
+  return { rows, dropped, pick: (v) => (dropped === 0 ? v : compact(v, rows)) };
+}
+
+function donutOf(score: Float64Array, cutoff: number, o: EstimateOptions): Uint8Array | undefined {
+  if (o.donut === undefined) return undefined;
+  if (!(o.donut > 0) || !Number.isFinite(o.donut)) fail('option', 'donut', `donut must be a positive number, got ${o.donut}`);
+  try {
+    return donutMask({ name: 'score', values: score, missing: o.missing?.score }, cutoff, o.donut)?.mask;
+  } catch (e) {
+    if (e instanceof CutlineError) fail('option', 'donut', `donut ${o.donut} leaves no unit on one side of the cutoff`);
+    throw e;
+  }
+}
+
+function sides(score: Float64Array, cutoff: number): void {
+  if (!Number.isFinite(cutoff)) fail('option', 'cutoff', 'the cutoff must be a number');
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < score.length; i++) {
+    if (score[i] < lo) lo = score[i];
+    if (score[i] > hi) hi = score[i];
+  }
+  if (lo === hi) fail('too-few', 'score', `the score is constant (every used row is ${lo}); there is no discontinuity to study`);
+  if (!(lo < cutoff)) fail('empty-side', 'cutoff', `no unit has a score below the cutoff ${cutoff}`);
+  if (!(hi >= cutoff)) fail('empty-side', 'cutoff', `no unit has a score at or above the cutoff ${cutoff}`);
+}
+
+function varies(v: Float64Array, argument: string, why: string): void {
+  for (let i = 1; i < v.length; i++) if (v[i] !== v[0]) return;
+  fail('too-few', argument, `${argument} is constant (every used row is ${v[0]}): ${why}`);
+}
+
+/** +1 when eligibility is above the cutoff: the given side, else the sign of the take-up jump at h. */
+export function eligibleSide(score: Float64Array, treated: Float64Array, cutoff: number, h: number, kernel: KernelName, given?: 'above' | 'below'): 1 | -1 {
+  if (given !== undefined) {
+    if (given !== 'above' && given !== 'below') fail('option', 'eligible', `eligible must be "above" or "below", got "${String(given)}"`);
+    return given === 'above' ? 1 : -1;
+  }
+  const w = boundaryWindow(score, cutoff, h, kernel);
+  const raw = applyWeights(w.above.coef1[0], w.above.index, treated) - applyWeights(w.below.coef1[0], w.below.index, treated);
+  return raw < 0 ? -1 : 1;
+}
+
+const FALLS_BELOW = 'take-up falls at the cutoff: eligibility is taken to be below the cutoff, and every jump is reported as below minus above';
+
+/** The design of a fuzzy calculation: rows, the estimates' bandwidth, the eligible side (as `runCheck`). */
+function fuzzyDesign(score: Column, treated: Column, outcome: Column, cutoff: number, o: EstimateOptions) {
+  checkColumns([['score', score], ['treated', treated], ['outcome', outcome]], o.missing);
+  const { kernel, variance } = resolve(o);
+  const s = f64(score);
+  const d = f64(treated);
+  const y = f64(outcome);
+  const donut = donutOf(s, cutoff, o);
+  const m = o.missing ?? {};
+  const p = listwise(s.length, [m.score, m.treated, m.outcome, o.clusters ? m.clusters : undefined], donut);
+  const ps = p.pick(s);
+  const pd = p.pick(d);
+  const py = p.pick(y);
+  sides(ps, cutoff);
+  varies(pd, 'treated', 'take-up cannot jump');
+  varies(py, 'outcome', 'there is no jump to estimate or test');
+  const bw = chooseBandwidth(ps, py, cutoff, { rule: o.rule, kernel, typed: o.bandwidth, treated: pd });
+  const tk = listwise(s.length, [m.score, m.treated, o.clusters ? m.clusters : undefined], donut);
+  const ts = tk.pick(s);
+  const td = tk.pick(d);
+  sides(ts, cutoff);
+  const sign = eligibleSide(ts, td, cutoff, bw.value, kernel, o.eligible);
+  const warnings = [...bw.warnings];
+  if (sign < 0 && o.eligible === undefined) warnings.push(FALLS_BELOW);
+  return { kernel, variance, p, ps, pd, py, tk, ts, td, h: bw.value, sign, warnings, clusters: o.clusters && p.pick(o.clusters) };
+}
+
+/** CUTLINE.EFFECT: the complier effect τ(Y)/τ(D), with its own take-up and outcome jumps. */
+export function complierEffect(score: Column, treated: Column, outcome: Column, cutoff: number, opts: EstimateOptions = {}): EffectResult {
+  const g = fuzzyDesign(score, treated, outcome, cutoff, opts);
+  const est = estimatesAtCutoff(g.ps, g.pd, g.py, cutoff, {
+    bandwidth: g.h,
+    kernel: g.kernel,
+    variance: g.variance,
+    clusters: g.clusters,
+    sign: g.sign,
+    level: opts.level,
+  });
+  return {
+    effect: est.effect,
+    takeup: est.takeup,
+    jump: est.jump,
+    eligible: g.sign > 0 ? 'above' : 'below',
+    bandwidth: g.h,
+    counts: est.counts,
+    rows: { used: g.p.rows.length, dropped: g.p.dropped },
+    warnings: [...g.warnings, ...est.warnings.filter((w) => !g.warnings.includes(w))],
+  };
+}
+
+/** A sharp jump of `values` at the cutoff, its bandwidth by rule on that jump. */
+function sharpJump(score: Column, values: Column, cutoff: number, o: EstimateOptions, argument: 'values' | 'treated'): EstimateResult {
+  checkColumns([['score', score], [argument, values]], o.missing);
+  const { kernel, variance } = resolve(o);
+  const s = f64(score);
+  const v = f64(values);
+  const m = o.missing ?? {};
+  const p = listwise(s.length, [m.score, m[argument], o.clusters ? m.clusters : undefined], donutOf(s, cutoff, o));
+  const ps = p.pick(s);
+  const pv = p.pick(v);
+  sides(ps, cutoff);
+  varies(pv, argument, 'there is no jump to estimate');
+  const bw = chooseBandwidth(ps, pv, cutoff, { rule: o.rule, kernel, typed: o.bandwidth });
+  const sign = argument === 'treated' ? eligibleSide(ps, pv, cutoff, bw.value, kernel, o.eligible) : o.eligible === 'below' ? -1 : 1;
+  if (o.eligible !== undefined) eligibleSide(ps, pv, cutoff, bw.value, kernel, o.eligible);
+  const win = boundaryWindow(ps, cutoff, bw.value, kernel);
+  const e = jumpAt(win, pv, { variance, clusters: o.clusters && p.pick(o.clusters), sign, level: o.level });
+  const warnings = [...bw.warnings];
+  if (argument === 'treated' && sign < 0 && o.eligible === undefined) warnings.push(FALLS_BELOW);
+  return {
+    ...e,
+    eligible: sign > 0 ? 'above' : 'below',
+    bandwidth: bw.value,
+    counts: { below: win.below.index.length, above: win.above.index.length },
+    rows: { used: p.rows.length, dropped: p.dropped },
+    warnings,
+  };
+}
+
+/** CUTLINE.TAKEUP: the jump in the share treated (first stage). */
+export function takeupJump(score: Column, treated: Column, cutoff: number, o: EstimateOptions = {}): EstimateResult {
+  return sharpJump(score, treated, cutoff, o, 'treated');
+}
+
+/** CUTLINE.JUMP: the jump in the mean of any column. */
+export function outcomeJump(score: Column, values: Column, cutoff: number, o: EstimateOptions = {}): EstimateResult {
+  return sharpJump(score, values, cutoff, o, 'values');
+}
+
+/** CUTLINE.BANDWIDTH: the estimates' bandwidth (rule on the effect when `treated` is given), or the validity test's. */
+export function selectBandwidth(
+  score: Column,
+  values: Column,
+  cutoff: number,
+  o: EstimateOptions & { treated?: Column; purpose: 'estimate' | 'test' },
+): BandwidthResult {
+  if (o.purpose === 'test') {
+    if (!o.treated) fail('option', 'treated', "the validity test's bandwidth needs the treated column");
+    const g = fuzzyDesign(score, o.treated, values, cutoff, o);
+    const warnings = [...g.warnings];
+    const value = o.bandwidth ?? testBandwidth(g.ts, g.td, cutoff, g.kernel, g.h, warnings);
+    const win = boundaryWindow(g.ps, cutoff, value, g.kernel, { quadratic: false });
+    return {
+      bandwidth: value,
+      rule: o.bandwidth !== undefined ? 'typed' : 'undersmoothed mse',
+      counts: { below: win.below.index.length, above: win.above.index.length },
+      rows: { used: g.p.rows.length, dropped: g.p.dropped },
+      warnings,
+    };
+  }
+  if (o.treated) {
+    const g = fuzzyDesign(score, o.treated, values, cutoff, o);
+    const win = boundaryWindow(g.ps, cutoff, g.h, g.kernel);
+    return {
+      bandwidth: g.h,
+      rule: o.bandwidth !== undefined ? 'typed' : (o.rule ?? 'mse'),
+      counts: { below: win.below.index.length, above: win.above.index.length },
+      rows: { used: g.p.rows.length, dropped: g.p.dropped },
+      warnings: g.warnings,
+    };
+  }
+  const j = outcomeJump(score, values, cutoff, o);
+  return { bandwidth: j.bandwidth, rule: o.bandwidth !== undefined ? 'typed' : (o.rule ?? 'mse'), counts: j.counts, rows: j.rows, warnings: j.warnings };
+}
+
+function complierCurve(
+  what: 'cdf' | 'density',
+  score: Column,
+  treated: Column,
+  outcome: Column,
+  cutoff: number,
+  at: number[],
+  arm: 0 | 1,
+  o: EstimateOptions,
+): ComplierCurveResult {
+  if (arm !== 0 && arm !== 1) fail('option', 'arm', `arm must be 1 (treated compliers) or 0 (untreated), got ${String(arm)}`);
+  at.forEach((a, i) => Number.isFinite(a) || fail('bad-value', 'at', `at, value ${i + 1}: not a finite number`, i));
+  const g = fuzzyDesign(score, treated, outcome, cutoff, o);
+  const co = { bandwidth: g.h, kernel: g.kernel, sign: g.sign };
+  const win = boundaryWindow(g.ps, cutoff, g.h, g.kernel, { quadratic: false });
+  const common = {
+    arm,
+    at: [...at],
+    bandwidth: g.h,
+    counts: { below: win.below.index.length, above: win.above.index.length },
+    rows: { used: g.p.rows.length, dropped: g.p.dropped },
+  };
+  if (what === 'cdf') {
+    const c = complierCdf(g.ps, g.pd, g.py, cutoff, at, arm, co);
+    return { ...common, values: c.cdf, violations: c.decreasing, warnings: g.warnings };
+  }
+  const d = complierDensity(g.ps, g.pd, g.py, cutoff, at, arm, co);
+  return { ...common, values: d.density, violations: d.negative, warnings: g.warnings };
+}
+
+/** CUTLINE.COMPLIERCDF: the implied CDF of compliers' outcomes in one arm at the values `at`. */
+export function complierCdfAt(score: Column, treated: Column, outcome: Column, cutoff: number, at: number[], arm: 0 | 1, o: EstimateOptions = {}): ComplierCurveResult {
+  return complierCurve('cdf', score, treated, outcome, cutoff, at, arm, o);
+}
+
+/** CUTLINE.COMPLIERDENSITY: the implied density of compliers' outcomes in one arm at the values `at`. */
+export function complierDensityAt(score: Column, treated: Column, outcome: Column, cutoff: number, at: number[], arm: 0 | 1, o: EstimateOptions = {}): ComplierCurveResult {
+  return complierCurve('density', score, treated, outcome, cutoff, at, arm, o);
+}
+
+/** CUTLINE.VALIDITY: the outcome–treatment test at the test bandwidth (as `cutline check`). */
+export function validity(score: Column, treated: Column, outcome: Column, cutoff: number, o: ValidityOptions = {}): ValidityReport {
+  const g = fuzzyDesign(score, treated, outcome, cutoff, o);
+  const warnings = [...g.warnings];
+  const testH = o.bandwidth ?? testBandwidth(g.ts, g.td, cutoff, g.kernel, g.h, warnings);
+  const vopts = { kernel: g.kernel, sign: g.sign, draws: o.draws, seed: o.seed, grid: o.grid, trim: o.trim, multiplier: o.multiplier };
+  const v = validityTest(g.ps, g.pd, g.py, cutoff, { ...vopts, bandwidth: testH });
+  const multiples = (o.sensitivity ?? []).filter((m) => m !== 1);
+  const others = multiples.length ? validityByBandwidth(g.ps, g.pd, g.py, cutoff, testH, multiples, vopts) : [];
+  const at1: ValidityAtBandwidth = { multiple: 1, bandwidth: testH, statistic: v.statistic, pvalue: v.pvalue, critical_value: v.critical_value, rejects: v.pvalue <= 0.05 };
+  const byBandwidth = [...others, at1].sort((a, b) => a.multiple - b.multiple);
+  for (const w of [...v.warnings, ...verdictWarnings(byBandwidth)]) if (!warnings.includes(w)) warnings.push(w);
+  return {
+    pvalue: v.pvalue,
+    statistic: v.statistic,
+    critical_value: v.critical_value,
+    intervals: v.intervals,
+    draws: v.draws,
+    seed: v.seed,
+    worst: v.worst,
+    by_bandwidth: byBandwidth,
+    eligible: g.sign > 0 ? 'above' : 'below',
+    bandwidth: testH,
+    counts: v.counts,
+    rows: { used: g.p.rows.length, dropped: g.p.dropped },
+    warnings,
+  };
+}
+
+/** CUTLINE.DENSITYTEST: a jump in the density of the score (local polynomial headline, McCrary beside). */
+export function densityTest(score: Column, cutoff: number, o: EstimateOptions & { bin?: number; densityBandwidth?: number } = {}): DensityReport {
+  checkColumns([['score', score]], o.missing);
+  const s = f64(score);
+  const p = listwise(s.length, [o.missing?.score], donutOf(s, cutoff, o));
+  const ps = p.pick(s);
+  sides(ps, cutoff);
+  const sign = o.eligible === 'below' ? -1 : 1;
+  const d = densitySection(ps, cutoff, { sign, bin: o.bin, bandwidth: o.densityBandwidth });
+  if (!d) fail('too-few', 'score', 'neither density test can be computed on these scores');
+  const lp = d.local_polynomial;
+  const bandwidth = lp ? lp.bandwidth : d.mccrary!.bandwidth;
+  let below = 0;
+  let above = 0;
+  for (let i = 0; i < ps.length; i++) {
+    const x = ps[i] - cutoff;
+    if (Math.abs(x) <= bandwidth) {
+      if (x < 0) below++;
+      else above++;
+    }
+  }
+  return {
+    method: d.method,
+    log_ratio: d.log_ratio,
+    se: d.se,
+    pvalue: d.pvalue,
+    mccrary_pvalue: d.mccrary?.pvalue,
+    local_polynomial_pvalue: lp?.pvalue,
+    bandwidth,
+    counts: { below, above },
+    rows: { used: p.rows.length, dropped: p.dropped },
+    warnings: d.warnings,
+  };
+}
+
+/** CUTLINE.BALANCE: the jump in a covariate at its own bandwidth, and the permutation test. */
+export function covariateBalance(score: Column, covariate: Column, cutoff: number, o: EstimateOptions & { seed?: number } = {}): BalanceReport {
+  checkColumns([['score', score], ['covariate', covariate]], o.missing);
+  const { kernel, variance } = resolve(o);
+  const s = f64(score);
+  const c = f64(covariate);
+  const m = o.missing ?? {};
+  const p = listwise(s.length, [m.score, m.covariate, variance === 'cluster' ? m.clusters : undefined], donutOf(s, cutoff, o));
+  const ps = p.pick(s);
+  const pc = p.pick(c);
+  sides(ps, cutoff);
+  varies(pc, 'covariate', 'there is nothing to test');
+  const h = chooseBandwidth(ps, pc, cutoff, { rule: o.rule, kernel, typed: o.bandwidth });
+  const sign = o.eligible === 'below' ? -1 : 1;
+  const win = boundaryWindow(ps, cutoff, h.value, kernel);
+  const e = jumpAt(win, pc, { variance, clusters: variance === 'cluster' && o.clusters ? p.pick(o.clusters) : undefined, sign });
+  const warnings = [...h.warnings];
+  let perm: { pvalue: number; q: number } | undefined;
+  try {
+    const r = permutationBalanceTest(ps, pc, cutoff, { seed: o.seed });
+    perm = r;
+    warnings.push(...r.warnings);
+  } catch (err) {
+    if (!(err instanceof CutlineError)) throw err;
+    warnings.push(`The permutation test could not be computed: ${err.message}`);
+  }
+  return {
+    jump: e.estimate,
+    se: e.se,
+    pvalue: e.pvalue,
+    permutation_pvalue: perm?.pvalue,
+    q: perm?.q,
+    bandwidth: h.value,
+    counts: { below: win.below.index.length, above: win.above.index.length },
+    rows: { used: p.rows.length, dropped: p.dropped },
+    warnings,
+  };
+}
+
+/** CUTLINE.BINS: binned means for a plot. */
+export function binnedMeansAt(score: Column, values: Column, cutoff: number, o: EstimateOptions & { binsBelow?: number; binsAbove?: number } = {}): BinsReport {
+  checkColumns([['score', score], ['values', values]], o.missing);
+  const s = f64(score);
+  const v = f64(values);
+  const m = o.missing ?? {};
+  const p = listwise(s.length, [m.score, m.values], donutOf(s, cutoff, o));
+  const ps = p.pick(s);
+  const pv = p.pick(v);
+  sides(ps, cutoff);
+  const b = binnedMeans(ps, pv, cutoff, { binsBelow: o.binsBelow, binsAbove: o.binsAbove });
+  let below = 0;
+  for (let i = 0; i < ps.length; i++) if (ps[i] < cutoff) below++;
+  return {
+    bins: b.bins,
+    binsBelow: b.binsBelow,
+    binsAbove: b.binsAbove,
+    counts: { below, above: ps.length - below },
+    rows: { used: p.rows.length, dropped: p.dropped },
+    warnings: [],
+  };
+}
