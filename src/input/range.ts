@@ -97,28 +97,34 @@ function letters(col: number): string {
   return s;
 }
 
+/** The address of the cell `down` rows and `right` columns from the top-left of a range ("Data!B7"), or undefined. */
+export function offsetAddress(address: string | undefined, down: number, right: number): string | undefined {
+  const m = address ? /^(?:(.*)!)?\$?([A-Za-z]{1,3})\$?(\d+)(?::\$?([A-Za-z]{1,3})\$?(\d+))?$/.exec(address.trim()) : null;
+  if (!m) return undefined;
+  const col = m[2].toUpperCase().split('').reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0);
+  return `${m[1] ? `${m[1]}!` : ''}${letters(col + right)}${Number(m[3]) + down}`;
+}
+
 /**
- * Where the k-th cell (0-based, header included) of a range is, for a
- * message: its address when the range's address is known ("B7",
- * "Data!B7"), else its position in the range ("row 6 of the range").
+ * Where the k-th cell (0-based, header included) of a one-column or one-row
+ * range is, for a message: its address when the range's address is known
+ * ("cell B7", "cell Data!B7"), else its position in the range ("row 6 of the range").
  */
 export function cellPlace(a: RangeArgument, k: number): string {
-  const m = a.address ? /^(?:(.*)!)?\$?([A-Za-z]{1,3})\$?(\d+)(?::\$?([A-Za-z]{1,3})\$?(\d+))?$/.exec(a.address.trim()) : null;
   const vertical = a.cells.length !== 1;
-  if (m) {
-    const col = m[2].toUpperCase().split('').reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0);
-    const row = Number(m[3]);
-    const sheet = m[1] ? `${m[1]}!` : '';
-    return `cell ${sheet}${vertical ? letters(col) + (row + k) : letters(col + k) + row}`;
-  }
-  return `${vertical ? 'row' : 'column'} ${k + 1} of the range`;
+  const at = offsetAddress(a.address, vertical ? k : 0, vertical ? 0 : k);
+  return at ? `cell ${at}` : `${vertical ? 'row' : 'column'} ${k + 1} of the range`;
 }
 
 /**
  * The columns of one call, checked and of one length. Errors name the
  * argument and the first bad cell; a range of the wrong length names both lengths.
  */
-export function rangeColumns(args: RangeArgument[]): RangeColumn[] {
+export function rangeColumns(
+  args: RangeArgument[],
+  /** Optional memory for the read columns (the worksheet functions' cache): `read()` is what it would hold for (a, header, n). */
+  memo?: (a: RangeArgument, header: number, n: number, read: () => RangeColumn) => RangeColumn,
+): RangeColumn[] {
   const flat = args.map((a) => {
     const cells = flatten(a);
     const header = cells.length > 0 && isHeader(cells[0]) ? 1 : 0;
@@ -139,7 +145,10 @@ export function rangeColumns(args: RangeArgument[]): RangeColumn[] {
       );
     }
   }
-  return flat.map(({ a, cells, header }) => readColumn(a, cells, header, n));
+  return flat.map(({ a, cells, header }) => {
+    const read = (): RangeColumn => readColumn(a, cells, header, n);
+    return memo ? memo(a, header, n, read) : read();
+  });
 }
 
 function readColumn(a: RangeArgument, cells: unknown[], header: number, n: number): RangeColumn {

@@ -1,0 +1,43 @@
+/**
+ * CUTLINE.DENSITYTEST: the p-value for a jump in the density of the score at
+ * the cutoff — the local polynomial test (Cattaneo, Jansson & Ma 2020) as the
+ * headline, McCrary's (2008) beside it — by the engine's `densityTest`; the
+ * p-value `cutline check` prints. Sorting unrelated to outcomes leaves the
+ * estimand intact, and a smooth density is no proof of validity.
+ *
+ * @example =CUTLINE.DENSITYTEST(C2:C6001, 60)
+ */
+import { densityTest } from '../engine/index';
+import { cellOf, guarded, Matrix, remembered, single } from './call';
+import { commonRows, table } from './detail';
+import { prepareCall, ranges } from './prepare';
+
+/**
+ * P-value for a jump in the density of the score at the cutoff (small: units may have sorted across it).
+ * @customfunction DENSITYTEST
+ * @param score Scores (running variable): one column; a title cell at the top is skipped.
+ * @param cutoff Cutoff of the score.
+ * @param [settings] Two-column range of settings (name, value), e.g. density bin, density bandwidth, donut, eligible.
+ * @param [detail] TRUE spills a labelled table: p-value, log ratio of the densities, its standard error, both tests, bandwidth, counts, rows, warnings.
+ * @param invocation Invocation (supplied by Excel).
+ * @returns The p-value; with detail, a two-column table.
+ * @requiresParameterAddresses
+ */
+export function densitytest(score: any[][], cutoff: number, settings?: any[][], detail?: boolean, invocation?: CustomFunctions.Invocation): any[][] {
+  return guarded('DENSITYTEST', (): Matrix => {
+    const c = prepareCall('DENSITYTEST', { ranges: ranges(['score', score]), cutoff, settings, settingsPosition: 2, detail }, invocation);
+    const r = remembered(c.key, () =>
+      densityTest(c.cols[0].values, c.cutoff, { ...c.opts, bin: c.settings.densityBin, densityBandwidth: c.settings.densityBandwidth }),
+    );
+    if (!c.detail) return single('DENSITYTEST', r.pvalue);
+    return table([
+      ['p-value', cellOf(r.pvalue)],
+      ['test', r.method === 'local_polynomial' ? 'local polynomial (Cattaneo, Jansson & Ma)' : 'McCrary'],
+      ['log ratio of the densities', cellOf(r.log_ratio)],
+      ['standard error', cellOf(r.se)],
+      ['p-value, local polynomial', r.local_polynomial_pvalue === undefined ? 'not computed' : cellOf(r.local_polynomial_pvalue)],
+      ['p-value, McCrary', r.mccrary_pvalue === undefined ? 'not computed' : cellOf(r.mccrary_pvalue)],
+      ...commonRows(r),
+    ]);
+  });
+}

@@ -1,0 +1,66 @@
+/**
+ * The arguments every function shares, read once per call: the ranges (as
+ * checked columns), the cutoff, the optional bandwidth, the settings block
+ * and the detail flag; and the key its result is remembered under.
+ */
+import { ValidityOptions } from '../engine/index';
+import { RangeColumn } from '../input/range';
+import { Settings } from '../input/settings';
+import {
+  bandwidthArgument,
+  engineOptions,
+  flagArgument,
+  InvocationLike,
+  numberArgument,
+  RangeSpec,
+  readRanges,
+  settingsArgument,
+  settingsKey,
+} from './call';
+
+export interface PreparedCall {
+  cols: RangeColumn[];
+  cutoff: number;
+  bandwidth?: number;
+  settings: Settings;
+  opts: ValidityOptions;
+  detail: boolean;
+  /** The function, the columns' contents, cutoff, bandwidth and settings (the detail flag only changes the layout). */
+  key: string;
+}
+
+export interface CallArguments {
+  ranges: RangeSpec[];
+  cutoff: unknown;
+  bandwidth?: unknown;
+  settings: unknown;
+  /** Position of the settings argument among the function's parameters (for its address). */
+  settingsPosition: number;
+  detail: unknown;
+  /** Anything else the result depends on (the `at` values, the arm). */
+  extraKey?: string;
+}
+
+export function prepareCall(fn: string, a: CallArguments, invocation?: InvocationLike | null): PreparedCall {
+  const { cols, key } = readRanges(a.ranges, invocation);
+  const cutoff = numberArgument('cutoff', a.cutoff, false);
+  const bandwidth = bandwidthArgument(a.bandwidth);
+  const settings = settingsArgument(a.settings, invocation, a.settingsPosition);
+  const detail = flagArgument(a.detail);
+  const missing: Record<string, Uint8Array> = {};
+  a.ranges.forEach((r, k) => (missing[r.argument] = cols[k].missing));
+  return {
+    cols,
+    cutoff,
+    bandwidth,
+    settings,
+    opts: engineOptions(bandwidth, settings, missing),
+    detail,
+    key: `${fn}|${key}|${cutoff}|${bandwidth ?? ''}|${settingsKey(settings)}|${a.extraKey ?? ''}`,
+  };
+}
+
+/** The range arguments, in order, from (name, cells, binary) triples. */
+export function ranges(...specs: Array<[string, unknown, boolean?]>): RangeSpec[] {
+  return specs.map(([argument, cells, binary], position) => ({ argument, cells: cells as unknown[][], position, binary }));
+}
