@@ -322,9 +322,11 @@ export function selectBandwidth(
   cutoff: number,
   o: EstimateOptions & { treated?: Column; purpose: 'estimate' | 'test' },
 ): BandwidthResult {
+  // `values` plays the outcome's part in a fuzzy design.
+  const fo = { ...o, missing: { ...o.missing, outcome: o.missing?.values } };
   if (o.purpose === 'test') {
     if (!o.treated) fail('option', 'treated', "the validity test's bandwidth needs the treated column");
-    const g = fuzzyDesign(score, o.treated, values, cutoff, o);
+    const g = fuzzyDesign(score, o.treated, values, cutoff, fo);
     const warnings = [...g.warnings];
     const value = o.bandwidth ?? testBandwidth(g.ts, g.td, cutoff, g.kernel, g.h, warnings);
     const win = boundaryWindow(g.ps, cutoff, value, g.kernel, { quadratic: false });
@@ -337,7 +339,7 @@ export function selectBandwidth(
     };
   }
   if (o.treated) {
-    const g = fuzzyDesign(score, o.treated, values, cutoff, o);
+    const g = fuzzyDesign(score, o.treated, values, cutoff, fo);
     const win = boundaryWindow(g.ps, cutoff, g.h, g.kernel);
     return {
       bandwidth: g.h,
