@@ -70,6 +70,10 @@ function text(cell: unknown): string | undefined {
 export function readSettings(cells: unknown[][] | null | undefined, argument = 'settings', address?: string): Settings {
   const out: Settings = {};
   if (cells === null || cells === undefined) return out;
+  const width = cells[0]?.length ?? 0;
+  if (width !== 2) {
+    throw new RangeInputError(`${argument} must be a range of two columns (name, value); it has ${width} column${width === 1 ? '' : 's'}`, argument, 'shape');
+  }
   const where = (r: number, c: number): string => {
     const at = offsetAddress(address, r, c);
     return at ? `cell ${at}` : `row ${r + 1}`;
