@@ -12,6 +12,7 @@ const benches: Array<[string, string[]]> = [
   ['bench/checkBench.ts', []],
   ['bench/validityBench.ts', []],
   ['bench/densityBench.ts', []],
+  ['bench/functionsBench.ts', []],
   ['bench/validityMonteCarlo.ts', [quick ? '200' : '1000']],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],
 ];

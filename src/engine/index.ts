@@ -177,11 +177,44 @@ function f64(c: Column): Float64Array {
   return c instanceof Float64Array ? c : Float64Array.from(c);
 }
 
+// The listwise rows of a set of masks, and the columns compacted to them, are
+// remembered by the arrays' identities: the ten worksheet functions of a
+// summary sheet hand the engine the same (cached) columns, so they share one
+// selection, and the engine's per-array memories (sorted order, windows) hit.
+const maskIds = new WeakMap<object, number>();
+let nextMaskId = 1;
+const idOf = (m: object | undefined): number => {
+  if (!m) return 0;
+  let id = maskIds.get(m);
+  if (id === undefined) {
+    id = nextMaskId++;
+    maskIds.set(m, id);
+  }
+  return id;
+};
+const rowsMemo = new Map<string, { rows: Int32Array; dropped: number }>();
+const compactMemo = new WeakMap<object, WeakMap<object, Float64Array | Int32Array>>();
+
 /** Listwise rows of the masks, outside the donut. */
 function listwise(n: number, masks: Array<Uint8Array | undefined>, donut?: Uint8Array): Rows {
-  const { rows, dropped } = completeRows(n, [...masks, donut]);
+  const key = `${n}|${[...masks, donut].map(idOf).join(',')}`;
+  let sel = rowsMemo.get(key);
+  if (!sel) {
+    sel = completeRows(n, [...masks, donut]);
+    rowsMemo.set(key, sel);
+    if (rowsMemo.size > 64) rowsMemo.delete(rowsMemo.keys().next().value as string);
+  }
+  const { rows, dropped } = sel;
   if (rows.length === 0) fail('too-few', 'score', 'no row has every value this calculation needs');
-  return { rows, dropped, pick: (v) => (dropped === 0 ? v : compact(v, rows)) };
+  const pick = <T extends Float64Array | Int32Array>(v: T): T => {
+    if (dropped === 0) return v;
+    let byRows = compactMemo.get(v);
+    if (!byRows) compactMemo.set(v, (byRows = new WeakMap()));
+    let out = byRows.get(rows) as T | undefined;
+    if (!out) byRows.set(rows, (out = compact(v, rows)));
+    return out;
+  };
+  return { rows, dropped, pick };
 }
 
 function donutOf(score: Float64Array, cutoff: number, o: EstimateOptions): Uint8Array | undefined {

@@ -42,12 +42,17 @@ export function cacheSizes(): { columns: number; results: number } {
   return { columns: columns.size, results: results.size };
 }
 
-/** Checked columns of one call and a key for their contents. */
-export function readRanges(specs: RangeSpec[], invocation?: InvocationLike | null): { cols: RangeColumn[]; key: string } {
+/** A key for the contents of a call's ranges (a hash of each range's cells and its role). */
+export function rangesKey(specs: RangeSpec[]): { key: string; hashes: string[] } {
   const hashes = specs.map((s) => {
     if (!Array.isArray(s.cells)) throw new RangeInputError(`${s.argument} must be a range of cells`, s.argument, 'shape');
     return hashCells(s.cells);
   });
+  return { key: hashes.map((h, k) => `${h}|${specs[k].binary ? 1 : 0}`).join('/'), hashes };
+}
+
+/** Checked columns of one call, each remembered by its cells' hash (`hashes` from rangesKey). */
+export function readRanges(specs: RangeSpec[], hashes: string[], invocation?: InvocationLike | null): RangeColumn[] {
   const args: Array<RangeArgument & { hash: string }> = specs.map((s, k) => ({
     argument: s.argument,
     cells: s.cells,
@@ -55,8 +60,7 @@ export function readRanges(specs: RangeSpec[], invocation?: InvocationLike | nul
     address: invocation?.parameterAddresses?.[s.position],
     hash: hashes[k],
   }));
-  const cols = rangeColumns(args, (a, header, n, read) => columns.get(`${(a as RangeArgument & { hash: string }).hash}|${a.binary ? 1 : 0}|${header}|${n}`, read));
-  return { cols, key: hashes.map((h, k) => `${h}|${specs[k].binary ? 1 : 0}`).join('/') };
+  return rangeColumns(args, (a, header, n, read) => columns.get(`${(a as RangeArgument & { hash: string }).hash}|${a.binary ? 1 : 0}|${header}|${n}`, read));
 }
 
 /** A number argument: finite, or a #VALUE! error naming it. */

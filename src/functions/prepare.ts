@@ -12,6 +12,7 @@ import {
   flagArgument,
   InvocationLike,
   numberArgument,
+  rangesKey,
   RangeSpec,
   readRanges,
   settingsArgument,
@@ -19,11 +20,13 @@ import {
 } from './call';
 
 export interface PreparedCall {
-  cols: RangeColumn[];
+  /** The checked columns (read when first asked for: a remembered result needs only the key). */
+  readonly cols: RangeColumn[];
   cutoff: number;
   bandwidth?: number;
   settings: Settings;
-  opts: ValidityOptions;
+  /** The engine's options, with the columns' missing masks. */
+  readonly opts: ValidityOptions;
   detail: boolean;
   /** The function, the columns' contents, cutoff, bandwidth and settings (the detail flag only changes the layout). */
   key: string;
@@ -42,19 +45,28 @@ export interface CallArguments {
 }
 
 export function prepareCall(fn: string, a: CallArguments, invocation?: InvocationLike | null): PreparedCall {
-  const { cols, key } = readRanges(a.ranges, invocation);
+  const { key, hashes } = rangesKey(a.ranges);
   const cutoff = numberArgument('cutoff', a.cutoff, false);
   const bandwidth = bandwidthArgument(a.bandwidth);
   const settings = settingsArgument(a.settings, invocation, a.settingsPosition);
   const detail = flagArgument(a.detail);
-  const missing: Record<string, Uint8Array> = {};
-  a.ranges.forEach((r, k) => (missing[r.argument] = cols[k].missing));
+  let cols: RangeColumn[] | undefined;
+  let opts: ValidityOptions | undefined;
   return {
-    cols,
+    get cols(): RangeColumn[] {
+      return (cols ??= readRanges(a.ranges, hashes, invocation));
+    },
+    get opts(): ValidityOptions {
+      if (!opts) {
+        const missing: Record<string, Uint8Array> = {};
+        a.ranges.forEach((r, k) => (missing[r.argument] = this.cols[k].missing));
+        opts = engineOptions(bandwidth, settings, missing);
+      }
+      return opts;
+    },
     cutoff,
     bandwidth,
     settings,
-    opts: engineOptions(bandwidth, settings, missing),
     detail,
     key: `${fn}|${key}|${cutoff}|${bandwidth ?? ''}|${settingsKey(settings)}|${a.extraKey ?? ''}`,
   };

@@ -73,16 +73,29 @@ export function errorCode(cell: unknown): string | undefined {
 
 const isBlank = (cell: unknown): boolean => cell === null || cell === undefined || (typeof cell === 'string' && cell.trim() === '');
 
-/** The cells of a one-column or one-row range, as a list. */
-function flatten(a: RangeArgument): unknown[] {
+/** A one-column or one-row range read cell by cell, without copying it (ranges can be 10⁶ cells). */
+interface CellView {
+  length: number;
+  at(i: number): unknown;
+}
+
+function view(a: RangeArgument): CellView {
   const rows = a.cells;
-  if (!Array.isArray(rows) || rows.length === 0 || !rows.every(Array.isArray)) {
+  if (!Array.isArray(rows) || rows.length === 0 || !Array.isArray(rows[0]) || !Array.isArray(rows[rows.length - 1])) {
     throw new RangeInputError(`${a.argument} must be a range of cells`, a.argument, 'shape');
   }
   const width = rows[0].length;
-  if (rows.length === 1) return rows[0];
-  if (width === 1) return rows.map((r) => r[0]);
+  if (rows.length === 1) return { length: width, at: (i) => rows[0][i] };
+  if (width === 1) return { length: rows.length, at: (i) => rows[i][0] };
   throw new RangeInputError(`${a.argument} must be a single column (or row) of cells; it has ${rows.length} rows and ${width} columns`, a.argument, 'shape');
+}
+
+/** The cells of a one-column or one-row range, as a list. */
+function flatten(a: RangeArgument): unknown[] {
+  const v = view(a);
+  const out = new Array<unknown>(v.length);
+  for (let i = 0; i < v.length; i++) out[i] = v.at(i);
+  return out;
 }
 
 /** A header: text at the top that is not a value by the cell rules. */
@@ -126,10 +139,10 @@ export function rangeColumns(
   memo?: (a: RangeArgument, header: number, n: number, read: () => RangeColumn) => RangeColumn,
 ): RangeColumn[] {
   const flat = args.map((a) => {
-    const cells = flatten(a);
-    const header = cells.length > 0 && isHeader(cells[0]) ? 1 : 0;
+    const cells = view(a);
+    const header = cells.length > 0 && isHeader(cells.at(0)) ? 1 : 0;
     let end = cells.length;
-    while (end > header && isBlank(cells[end - 1])) end--;
+    while (end > header && isBlank(cells.at(end - 1))) end--;
     return { a, cells, header, end };
   });
   const n = Math.max(...flat.map((f) => f.end - f.header));
@@ -146,7 +159,7 @@ export function rangeColumns(
     }
   }
   return flat.map(({ a, cells, header }) => {
-    const read = (): RangeColumn => readColumn(a, cells, header, n);
+    const read = (): RangeColumn => readColumn(a, flatten(a), header, n);
     return memo ? memo(a, header, n, read) : read();
   });
 }
