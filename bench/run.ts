@@ -15,6 +15,9 @@ const benches: Array<[string, string[]]> = [
   ['bench/functionsBench.ts', []],
   ['bench/validityMonteCarlo.ts', [quick ? '200' : '1000']],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],
+  ['bench/validitySizeBinding.ts', [quick ? '200' : '2000']],
+  ['bench/bandwidthConvergence.ts', [quick ? '50' : '400']],
+  ['bench/densitySpread.ts', [quick ? '200' : '2000']],
 ];
 let failed = 0;
 for (const [file, args] of benches) {

@@ -1,6 +1,6 @@
 /**
  * The readable (default) output of `cutline check`: Cutline's own layout, a
- * block per question an evaluator asks, with the cautions of METHODS.md.
+ * block per question an evaluator asks, with the cautions of docs/methods.md.
  */
 import { CheckResult, EstimateSummary, OutcomeResult } from '../engine/check/check';
 import { interval, num, padLeft, padRight, pval, wrap } from './format';

@@ -1,5 +1,5 @@
 /**
- * One cell to a number, by the rules of METHODS.md §1: an empty cell or a
+ * One cell to a number, by the rules of docs/methods.md §1: an empty cell or a
  * missing marker (NA, N/A, #N/A, a lone dot; any case) is missing; TRUE/FALSE
  * (booleans or text) are 1/0; a decimal number is itself; anything else —
  * other text, a non-finite number, hexadecimal — is an error.

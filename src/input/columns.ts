@@ -1,5 +1,5 @@
 /**
- * Columns of a Table checked and converted once, for every face (METHODS.md
+ * Columns of a Table checked and converted once, for every face (docs/methods.md
  * §1). Each error names the column (and the option that asked for it) and the
  * first offending row; missing values become a mask, never a silent NaN.
  */

@@ -1,5 +1,5 @@
 /**
- * Bandwidth by rule (METHODS.md §3): `mse` (default), `ik`, `cer` =
+ * Bandwidth by rule (docs/methods.md §3): `mse` (default), `ik`, `cer` =
  * mse·n^(−1/20) (Calonico, Cattaneo & Farrell 2020, for local linear), or a
  * number typed by the user, which always wins. `treated` given: the rule is
  * that of the fuzzy effect of `values` on take-up; absent: the sharp jump.

@@ -1,7 +1,7 @@
 /**
  * The `ik` bandwidth of Imbens & Kalyanaraman (2012, Review of Economic
  * Studies 79(3)), sharp and fuzzy, with their regularisation terms. Steps as
- * stated in METHODS.md §3 (an outline recalled from memory there; check it
+ * stated in docs/methods.md §3.3 (an outline recalled from memory; check it
  * against the paper's own statement):
  *
  * 1. pilots of bandwidthPilots.ts: h₁, f̂, σ̂²_±, m̂₃;

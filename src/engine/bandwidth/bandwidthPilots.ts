@@ -1,7 +1,7 @@
 /**
  * Pilot quantities shared by the `ik` and `mse` bandwidth rules
  * (Imbens & Kalyanaraman 2012, Review of Economic Studies 79(3), §4.2; the
- * outline as recalled from memory in METHODS.md §3):
+ * outline as recalled from memory, docs/methods.md §3.1 and §11):
  *
  * - h₁ = 1.84·sd(R)·n^(−1/5), the density f̂ = (N₁₋ + N₁₊)/(2n·h₁) and, per
  *   side, the sample variances (denominator N − 1) of each column among the

@@ -4,7 +4,7 @@
  * the design that exist. Faces (command line, task pane, worksheet functions)
  * call this and only present what it returns.
  *
- * Choices (README "Methods"):
+ * Choices (docs/methods.md §1 and §2.6):
  * - listwise per calculation: the take-up jump uses rows complete in score,
  *   treated (and cluster); each outcome uses rows complete in score, treated,
  *   that outcome (and cluster); `rows` reports the first outcome's rows;
@@ -182,7 +182,7 @@ function keep<T extends Float64Array | Int32Array>(values: T, rows: Int32Array, 
 const fmt = (v: number): string => Number(v.toPrecision(4)).toString();
 
 /**
- * The validity test's bandwidth (METHODS §4): the mse bandwidth of the take-up
+ * The validity test's bandwidth (docs/methods.md §4.9): the mse bandwidth of the take-up
  * jump times n^(−1/20). When take-up has no sampling variation near the cutoff
  * (a sharp design: treated is constant on each side) that rule is undefined;
  * Cutline then uses the estimates' bandwidth times n^(−1/20) and says so. A
@@ -298,7 +298,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   const takeupEst = estimatesAtCutoff(tk.score, tk.treated, tk.treated, cutoff, { ...opts, clusters: tk.clusters, window: tkWin });
   for (const w of takeupEst.warnings) if (!warnings.includes(w)) warnings.push(w);
 
-  // The validity test's bandwidth: undersmoothed mse of take-up (METHODS §4), or the typed one.
+  // The validity test's bandwidth: undersmoothed mse of take-up (docs/methods.md §4.9), or the typed one.
   const testH = options.bandwidth ?? testBandwidth(tk.score, tk.treated, cutoff, kernel, h, warnings);
   const multiples = (options.sensitivity ?? DEFAULT_SENSITIVITY).filter((m) => m !== 1);
   if (variance === 'cluster') {

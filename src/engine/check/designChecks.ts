@@ -1,11 +1,11 @@
 /**
- * The checks of the design beside the outcome–treatment test (METHODS.md
+ * The checks of the design beside the outcome–treatment test (docs/methods.md
  * §6–§8), assembled for a whole check: the score's density (both tests, the
  * local polynomial one the headline when it can be computed), each
  * covariate's continuity (local linear jump, Canay–Kamat permutation test,
  * Holm across covariates) and the binned means for the plots.
  *
- * Choices (README "Methods"): a covariate's jump is estimated at its own
+ * Choices (docs/methods.md §6–§7): a covariate's jump is estimated at its own
  * bandwidth (the same rule as the estimates, applied to the covariate's sharp
  * jump; a typed bandwidth wins); `pvalue_holm` adjusts the jumps' robust
  * p-values and `permutation_pvalue_holm` the permutation p-values; a test that

@@ -1,5 +1,5 @@
 /**
- * Implied complier distributions at the cutoff (METHODS.md §5; Imbens & Rubin
+ * Implied complier distributions at the cutoff (docs/methods.md §5; Imbens & Rubin
  * 1997, Review of Economic Studies 64(4), for the complier-distribution
  * identity; Arai, Hsu, Kitagawa, Mourifié & Wan 2022 for its use as a check).
  *

@@ -1,5 +1,5 @@
 /**
- * Where to show the implied complier distributions of a check (METHODS.md §5):
+ * Where to show the implied complier distributions of a check (docs/methods.md §5):
  * the distinct window outcomes when they are few (binary, counts, scales),
  * else the quantiles 2%, 6%, …, 98% of the window outcomes (25 points; type 1,
  * an outcome value each). Cutline's choice: a grid that follows the data, so

@@ -1,12 +1,14 @@
 /**
  * The approximate permutation test of Canay & Kamat (2018, Review of Economic
  * Studies 85(3)) for continuity of a covariate's distribution at the cutoff,
- * METHODS.md §7.
+ * docs/methods.md §7.
  *
  * - The q units closest to the cutoff on each side (below: R < c; above:
  *   R ≥ c), chosen by a bounded max-heap in one pass (no sort of all rows);
- *   units tied in |R − c| are taken in row order (Cutline's choice, with a
- *   warning when the tie straddles the q-th place).
+ *   when units tie at the q-th distance, the ones kept are drawn among the
+ *   tied units (put in order of covariate value) by a seeded stream of their
+ *   own, with a warning, so that the choice does not depend on the row order
+ *   (Cutline's choice).
  * - Cramér–von Mises statistic, CK's normalisation (their eq. (12)):
  *   T = (1/2q)·Σ_{i=1}^{2q} (H⁻(W_i) − H⁺(W_i))², H∓ the empirical CDFs of the
  *   covariate among the q units below/above and W the 2q pooled values. For
@@ -62,7 +64,7 @@ export function cramerVonMises(a: ArrayLike<number>, b: ArrayLike<number>): numb
   return s / v.length;
 }
 
-/** Positions of the q units nearest the cutoff on one side (ties by row order). */
+/** Positions of the q units nearest the cutoff on one side (ties at the q-th distance drawn by `rng`, see below). */
 function nearest(
   score: ArrayLike<number>,
   covariate: ArrayLike<number>,

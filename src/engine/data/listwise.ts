@@ -1,5 +1,5 @@
 /**
- * Listwise selection (METHODS.md §1): a row missing in any column that a
+ * Listwise selection (docs/methods.md §1): a row missing in any column that a
  * calculation uses is dropped from that calculation, and counted.
  */
 

@@ -1,6 +1,6 @@
 /**
  * Distinct score values near the cutoff, and the data-specific caveat the
- * density tests (METHODS.md §6) and the binned plots attach when the score is
+ * density tests (docs/methods.md §6.3) and the binned plots attach when the score is
  * discrete or heaped. McCrary (2008, §2 and §5) and Cattaneo, Jansson & Ma
  * (2020, §2) both assume a continuously distributed score; with a score that
  * takes few values (mass points) the histogram heights or the empirical

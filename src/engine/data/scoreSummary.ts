@@ -1,7 +1,7 @@
 /**
  * One linear pass over the score (optionally restricted to `rows`): count,
  * mean, sample standard deviation, range and the counts on each side of the
- * cutoff (a unit at the cutoff is above, METHODS.md §1). Shared by the density
+ * cutoff (a unit at the cutoff is above, docs/methods.md §1). Shared by the density
  * tests, the permutation test and the binned plots; a non-finite score is a
  * CutlineError naming the row (the input layer should have caught it).
  */

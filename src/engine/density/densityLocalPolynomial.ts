@@ -1,6 +1,6 @@
 /**
  * The local polynomial density test of Cattaneo, Jansson & Ma (2020, JASA
- * 115(531)), METHODS.md §6: on each side of the cutoff, a local polynomial
+ * 115(531)), docs/methods.md §6.2: on each side of the cutoff, a local polynomial
  * fit of the empirical distribution function F̂(R_i) = #{j: R_j ≤ R_i}/n (all
  * n units) on (1, x, x², …), x = R_i − c, triangular weights 1 − |x|/h, using
  * only that side's units; the slope at c is the side's density.

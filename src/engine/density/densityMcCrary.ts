@@ -1,6 +1,6 @@
 /**
  * McCrary's (2008, Journal of Econometrics 142(2)) test for a jump in the
- * density of the score at the cutoff, exactly as METHODS.md §6 fixes it:
+ * density of the score at the cutoff, as docs/methods.md §6.1 states it:
  *
  * 1. Bins [c + k·b, c + (k+1)·b) for integer k, from the bin holding the
  *    lowest score to the bin holding the highest (empty bins included, so the
@@ -13,7 +13,7 @@
  *    ratio is eligible side over the other, ln f̂₋ − ln f̂₊; p is unchanged.
  *
  * Bandwidth h, unless given — McCrary's rule of thumb, recalled from memory
- * (METHODS.md marks it so too): on each side a global quartic in X_j − c is
+ * (docs/methods.md §11 lists it): on each side a global quartic in X_j − c is
  * fitted to the heights by least squares; σ̃² is its residual mean square
  * (Cutline divides by J − 5, J the side's bins); then
  * h_s = 3.348·[σ̃²·L_s / Σ_j f̃''(X_j)²]^(1/5) with L_s the side's range

@@ -1,12 +1,12 @@
 /**
  * The kernel window at the cutoff and the local polynomial smoother weights
- * of METHODS.md §2, computed once per side from the scores alone and reused
+ * of docs/methods.md §2.2, computed once per side from the scores alone and reused
  * for every outcome, indicator and bootstrap draw.
  *
  * On each side, the coefficient vector of a weighted least-squares fit of V on
  * (1, x, …, x^p), x = R − c, weights k_i = K(x_i/h), is Σ_i W_j(i) V_i with
  * W(i) = (Σ_l k_l z_l z_l')⁻¹ z_i k_i. Row 0 of W (the intercept weights) is
- * the ω of METHODS.md. Units of a side are stored sorted by score, which the
+ * the ω of docs/methods.md §2.2. Units of a side are stored sorted by score, which the
  * nearest-neighbour variance and the validity test rely on.
  *
  * Reference: Fan & Gijbels (1996), Local Polynomial Modelling, §3.

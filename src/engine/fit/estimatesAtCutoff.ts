@@ -1,7 +1,7 @@
 /**
  * The estimates of one outcome at the cutoff on a common window: take-up jump
  * (first stage), the outcome's jump, and the complier effect, with the
- * warnings of METHODS.md §2 that belong to them.
+ * warnings of docs/methods.md §2.6 that belong to them.
  */
 import { boundaryWindow, Window } from './boundaryWindow';
 import { Estimate } from './estimate';

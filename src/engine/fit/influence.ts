@@ -1,7 +1,7 @@
 /**
  * Variances from influence terms. A jump estimate Σ_above w_i V_i −
  * Σ_below w_i V_i has influence terms ψ_i = ±w_i e_i (residuals e of
- * residuals.ts); then (METHODS.md §2)
+ * residuals.ts); then (docs/methods.md §2.3)
  *
  * - hc0 / hc1 / nn: Var = Σ ψ_i², Cov(A, B) = Σ ψ^A_i ψ^B_i (sides independent);
  * - cluster: Var = G/(G−1) Σ_g (Σ_{i∈g} ψ_i)², G the clusters in the window; a

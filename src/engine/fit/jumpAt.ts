@@ -1,6 +1,6 @@
 /**
  * The sharp jump in the mean of a column at the cutoff, and the fuzzy
- * (complier) effect, on a given window (METHODS.md §2).
+ * (complier) effect, on a given window (docs/methods.md §2.4).
  *
  * Fuzzy: τ̂ = τ(Y)/τ(D), with the delta-method variance
  * [Var τ(Y) − 2τ̂ Cov(τ(Y), τ(D)) + τ̂² Var τ(D)]/τ(D)², computed exactly as

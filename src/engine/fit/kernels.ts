@@ -1,5 +1,5 @@
 /**
- * Kernels of METHODS.md §2, zero outside the open interval (−1, 1).
+ * Kernels of docs/methods.md §2.1, zero outside the open interval (−1, 1).
  *
  * @example kernelWeight('triangular', 0.25) // 0.75
  */

@@ -1,11 +1,11 @@
 /**
  * Per-unit residual terms e_i of one side of the window, such that the
- * variance of a smoother Σ w_i V_i is Σ w_i² e_i² (METHODS.md §2):
+ * variance of a smoother Σ w_i V_i is Σ w_i² e_i² (docs/methods.md §2.3):
  *
  * - `hc0`, `cluster`: e_i = V_i − fitted value of the side's fit (degree 1 for
  *   the estimate, degree 2 for the bias-corrected one).
  * - `hc1`: hc0 times sqrt(n_s/(n_s − q)), q the fit's parameter count (2 for
- *   the line, as METHODS.md states; 3 for the quadratic, Cutline's choice).
+ *   the line, the usual degrees-of-freedom factor; 3 for the quadratic, Cutline's choice).
  * - `nn`: sqrt(J_i/(J_i+1))·(V_i − mean of V over the nearest neighbours by
  *   score on the same side of the window), Calonico, Cattaneo & Titiunik
  *   (2014, §3 and supplement): the J = 3 nearest, and every further unit at

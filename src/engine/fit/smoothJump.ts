@@ -1,5 +1,5 @@
 /**
- * The jump τ(V) = â₊(V) − â₋(V) of METHODS.md §2 and its robust
+ * The jump τ(V) = â₊(V) − â₋(V) of docs/methods.md §2.4 and its robust
  * bias-corrected counterpart, each with per-unit influence terms so that any
  * variance (influence.ts) and the delta method of the fuzzy ratio follow.
  *

@@ -1,7 +1,7 @@
 /**
  * Holm (1979, Scandinavian Journal of Statistics 6(2)) step-down adjustment of
- * a family of p-values, METHODS.md §7 ("many covariates: … plus a Holm
- * adjustment"). With p₍₁₎ ≤ … ≤ p₍m₎ the sorted p-values,
+ * a family of p-values, docs/methods.md §4.10 (outcomes) and §7
+ * (covariates). With p₍₁₎ ≤ … ≤ p₍m₎ the sorted p-values,
  *
  *     p̃₍i₎ = max_{j ≤ i} min(1, (m − j + 1)·p₍j₎),
  *

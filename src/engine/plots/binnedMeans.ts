@@ -1,5 +1,5 @@
 /**
- * Binned means for the plot of METHODS.md §8: evenly spaced bins on each side
+ * Binned means for the plot of docs/methods.md §8: evenly spaced bins on each side
  * of the cutoff, below from the lowest score to c, above from c to the
  * highest score (the last bin above is closed), with the mean and count of
  * the values in each bin at the bin midpoint. Empty bins are left out of

@@ -1,5 +1,5 @@
 /**
- * The local linear fit lines of METHODS.md §2 over the window, for the binned
+ * The local linear fit lines of docs/methods.md §2 over the window, for the binned
  * plot (§8): on each side the intercept â_s (the fit at the cutoff) and slope
  * b̂_s of V on R − c with kernel weights, from the same smoother weights as
  * every jump (boundaryWindow.ts). The line of a side is â + b̂·(R − c) for R

@@ -1,5 +1,5 @@
 /**
- * The outcome bins of the validity test's interval class (METHODS.md §4;
+ * The outcome bins of the validity test's interval class (docs/methods.md §4.3;
  * Arai, Hsu, Kitagawa, Mourifié & Wan 2022, Quantitative Economics 13(1)).
  *
  * From the N outcomes of the window W, with m distinct values v₁ < … < v_m and

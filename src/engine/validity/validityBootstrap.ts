@@ -1,5 +1,5 @@
 /**
- * The multiplier bootstrap of the validity test (METHODS.md §4; Andrews & Shi
+ * The multiplier bootstrap of the validity test (docs/methods.md §4.5; Andrews & Shi
  * 2013, Econometrica 81(2), moment selection; Arai, Hsu, Kitagawa, Mourifié &
  * Wan 2022, Quantitative Economics 13(1)).
  *

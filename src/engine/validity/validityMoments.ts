@@ -1,6 +1,6 @@
 /**
  * Estimates, hc0 variances and studentised values of every moment of the
- * validity test (METHODS.md §4; Arai, Hsu, Kitagawa, Mourifié & Wan 2022,
+ * validity test (docs/methods.md §4.2; Arai, Hsu, Kitagawa, Mourifié & Wan 2022,
  * Quantitative Economics 13(1)) on one window, from per-bin sums.
  *
  * A moment ℓ = (I, d) is the indicator g_ℓ = 1{Y ∈ I, D = d}, I a union of

@@ -4,7 +4,7 @@
  * assumptions in fuzzy regression discontinuity designs", Quantitative
  * Economics 13(1), 1–28; inference by Andrews & Shi (2013, Econometrica 81(2)).
  *
- * METHODS.md §4 to the letter: window W (k_i > 0) at the given bandwidth and
+ * docs/methods.md §4: window W (k_i > 0) at the given bandwidth and
  * kernel; interval class from W's outcomes (intervalClass.ts); for each
  * moment ℓ = (I, d), ν̂ and its hc0 σ̂ from per-bin sums (validityMoments.ts);
  * t = ν̂/max(σ̂, f), f = ξ·sqrt(Σ_W ω²); T = max t; multiplier bootstrap with
