@@ -64,10 +64,7 @@ export function readRanges(specs: RangeSpec[], hashes: string[], invocation?: In
 }
 
 /** A number argument: finite, or a #VALUE! error naming it. */
-export function numberArgument(argument: string, v: unknown, optional: false): number;
-export function numberArgument(argument: string, v: unknown, optional: true): number | undefined;
-export function numberArgument(argument: string, v: unknown, optional: boolean): number | undefined {
-  if (optional && (v === null || v === undefined || v === '')) return undefined;
+export function numberArgument(argument: string, v: unknown): number {
   const x = typeof v === 'string' && v.trim() !== '' ? Number(v) : v;
   if (typeof x !== 'number' || !Number.isFinite(x)) {
     throw new RangeInputError(`${argument} must be a number; it is ${v === null || v === undefined || v === '' ? 'empty' : JSON.stringify(v)}`, argument);
@@ -77,7 +74,8 @@ export function numberArgument(argument: string, v: unknown, optional: boolean):
 
 /** The optional bandwidth: a positive number when given. */
 export function bandwidthArgument(v: unknown): number | undefined {
-  const h = numberArgument('bandwidth', v, true);
+  if (v === null || v === undefined || v === '') return undefined;
+  const h = numberArgument('bandwidth', v);
   if (h !== undefined && !(h > 0)) throw new RangeInputError(`bandwidth must be a positive number; it is ${h} (leave it empty for the data-driven bandwidth)`, 'bandwidth');
   return h;
 }

@@ -46,7 +46,7 @@ export interface CallArguments {
 
 export function prepareCall(fn: string, a: CallArguments, invocation?: InvocationLike | null): PreparedCall {
   const { key, hashes } = rangesKey(a.ranges);
-  const cutoff = numberArgument('cutoff', a.cutoff, false);
+  const cutoff = numberArgument('cutoff', a.cutoff);
   const bandwidth = bandwidthArgument(a.bandwidth);
   const settings = settingsArgument(a.settings, invocation, a.settingsPosition);
   const detail = flagArgument(a.detail);

@@ -158,7 +158,7 @@ export function rangeColumns(
       );
     }
   }
-  return flat.map(({ a, cells, header }) => {
+  return flat.map(({ a, header }) => {
     const read = (): RangeColumn => readColumn(a, flatten(a), header, n);
     return memo ? memo(a, header, n, read) : read();
   });
