@@ -9,14 +9,16 @@ const root = path.resolve(__dirname, '..', '..');
 const readme = fs.readFileSync(path.join(root, 'README.md'), 'utf8');
 const meta = JSON.parse(fs.readFileSync(path.join(root, 'dist', 'functions.json'), 'utf8'));
 
-test.each(meta.functions.map((f: { id: string; parameters: Array<{ name: string; optional?: boolean }> }) => [f.id, f]))(
-  '%s: its arguments in the table and an example formula',
-  (id, f) => {
-    const sig = (f as { parameters: Array<{ name: string; optional?: boolean }> }).parameters.map((p) => (p.optional ? `[${p.name}]` : p.name)).join(', ');
-    expect(readme.includes(`| \`${id}\` | \`${sig}\``) || (id === 'COMPLIERDENSITY' && readme.includes('| `COMPLIERDENSITY` | same as `COMPLIERCDF`'))).toBe(true);
-    expect(readme).toMatch(new RegExp(`^=CUTLINE\\.${id}\\(C2:C6001, `, 'm'));
-  },
-);
+interface Fn {
+  id: string;
+  parameters: Array<{ name: string; optional?: boolean }>;
+}
+
+test.each((meta.functions as Fn[]).map((f): [string, Fn] => [f.id, f]))('%s: its arguments in the table and an example formula', (id, f) => {
+  const sig = f.parameters.map((p) => (p.optional ? `[${p.name}]` : p.name)).join(', ');
+  expect(readme.includes(`| \`${id}\` | \`${sig}\``) || (id === 'COMPLIERDENSITY' && readme.includes('| `COMPLIERDENSITY` | same as `COMPLIERCDF`'))).toBe(true);
+  expect(readme).toMatch(new RegExp(`^=CUTLINE\\.${id}\\(C2:C6001, `, 'm'));
+});
 
 test.each(SETTINGS.map((s) => [s.name]))('setting %s is in the settings table', (name) => {
   expect(readme).toMatch(new RegExp(`^\\| [^|]*\`${name}\``, 'm'));
