@@ -10,6 +10,7 @@ const quick = process.argv.includes('--quick');
 const runner = path.join(process.cwd(), 'bin', 'run-ts.cjs');
 const benches: Array<[string, string[]]> = [
   ['bench/checkBench.ts', []],
+  ['bench/tiesBench.ts', []],
   ['bench/validityBench.ts', []],
   ['bench/densityBench.ts', []],
   ['bench/functionsBench.ts', []],

@@ -63,6 +63,7 @@ export function parseArgs(argv: string[], specs: Record<string, OptionSpec> = CH
     if (!spec) throw new CutlineError(`unknown option --${name} (see \`cutline help\`)`);
     if (!spec.value) {
       if (eq >= 0) throw new CutlineError(`--${name} takes no value`);
+      if (out.flags.has(name)) throw new CutlineError(`--${name} is given twice; give it once`);
       out.flags.add(name);
       continue;
     }
@@ -74,7 +75,9 @@ export function parseArgs(argv: string[], specs: Record<string, OptionSpec> = CH
       i++;
     }
     const list = out.values.get(name) ?? [];
-    if (list.length > 0 && !spec.repeat) throw new CutlineError(`--${name} is given twice`);
+    if (list.length > 0 && !spec.repeat) {
+      throw new CutlineError(`--${name} is given twice (${JSON.stringify(list[0])} and ${JSON.stringify(v)}); give it once`);
+    }
     list.push(v);
     out.values.set(name, list);
   }

@@ -14,6 +14,7 @@ import { choiceOption, numberOption, one, parseArgs, ParsedArgs, required } from
 import { toJson } from './json';
 import { readable } from './readable';
 import { readTable } from './readTable';
+import { withFlags } from './flagHints';
 
 const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
@@ -34,6 +35,15 @@ function sensitivityOption(s: string | undefined): number[] | undefined {
   return values;
 }
 
+/** Equal values and equal missing cells on every row. */
+function sameValues(a: CheckInput['score'], b: CheckInput['score']): boolean {
+  for (let i = 0; i < a.values.length; i++) {
+    const ma = a.missing?.[i] ?? 0;
+    if (ma !== (b.missing?.[i] ?? 0) || (!ma && a.values[i] !== b.values[i])) return false;
+  }
+  return true;
+}
+
 /** One column, one role: an outcome given twice, or the score as the outcome, is a slip, not a request. */
 function distinctRoles(input: CheckInput): void {
   const roles: Array<[string, string]> = [
@@ -45,9 +55,24 @@ function distinctRoles(input: CheckInput): void {
     const j = roles.findIndex(([, other]) => other === name);
     if (j < i) throw new CutlineError(`${role}: column ${JSON.stringify(name)} is already given as ${roles[j][0]}`);
   });
-  const covs = (input.covariates ?? []).map((c) => c.name);
-  covs.forEach((name, i) => {
-    if (covs.indexOf(name) < i) throw new CutlineError(`--covariate: column ${JSON.stringify(name)} is given twice`);
+  const covs = input.covariates ?? [];
+  covs.forEach((c, i) => {
+    if (covs.findIndex((o) => o.name === c.name) < i) throw new CutlineError(`--covariate: column ${JSON.stringify(c.name)} is given twice`);
+    // A covariate is a characteristic fixed before treatment: the score, the treated column or an
+    // outcome (or a copy of one under another name) would show a "jump" by construction. Refused.
+    const role = roles.find(([, name]) => name === c.name);
+    if (role) {
+      throw new CutlineError(
+        `--covariate: column ${JSON.stringify(c.name)} is already given as ${role[0]}; a covariate must be a characteristic fixed before treatment (the balance check of the score, take-up or an outcome is meaningless), so give another column`,
+      );
+    }
+    const same = [input.score, input.treated, ...input.outcomes].find((col) => sameValues(col, c));
+    if (same) {
+      const r = roles.find(([, name]) => name === same.name)!;
+      throw new CutlineError(
+        `--covariate: column ${JSON.stringify(c.name)} holds the same values as ${JSON.stringify(same.name)} (${r[0]}) on every row; a covariate must be a characteristic fixed before treatment, so give another column`,
+      );
+    }
   });
 }
 
@@ -130,13 +155,18 @@ async function main(argv: string[]): Promise<number> {
       process.stdout.write(USAGE);
       return argv.length === 0 ? 2 : 0;
     }
+    // `cutline check --help` (anywhere after the command) prints the usage too.
+    if (argv[0] === 'check' && argv.slice(1).some((a) => a === '--help' || a === '-h')) {
+      process.stdout.write(USAGE);
+      return 0;
+    }
     const args = parseArgs(argv);
     if (args.command !== 'check') throw new CutlineError(`unknown command ${JSON.stringify(args.command)}; the command is \`cutline check\``);
     await check(args);
     return 0;
   } catch (e) {
     if (e instanceof CutlineError) {
-      process.stderr.write(`cutline: ${e.message.replace(/\s*\n\s*/g, ' ')}\n`);
+      process.stderr.write(`cutline: ${withFlags(e.message).replace(/\s*\n\s*/g, ' ')}\n`);
       return 2;
     }
     process.stderr.write(`cutline: internal error: ${e instanceof Error ? e.message : String(e)}\n`);

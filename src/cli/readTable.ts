@@ -5,7 +5,7 @@
 import * as fs from 'fs';
 import * as path from 'path';
 import { CutlineError } from '../engine/errors';
-import { parseCsv } from '../input/csv';
+import { looksLikeUtf16, parseCsv } from '../input/csv';
 import { Table } from '../input/table';
 import { parseXlsx } from '../input/xlsx';
 
@@ -29,6 +29,7 @@ export async function readTable(file: string, sheet?: string): Promise<Table> {
   }
   if (zip || ext === '.xlsx' || ext === '.xlsm') return parseXlsx(bytes, sheet, file);
   if (sheet !== undefined) throw new CutlineError(`--sheet applies to XLSX workbooks; ${file} is read as CSV`);
-  if (bytes.includes(0)) throw new CutlineError(`${file} is neither a CSV text nor an XLSX workbook`);
+  // UTF-16 text holds zero bytes too: parseCsv refuses it with a hint to save it as UTF-8.
+  if (bytes.includes(0) && !looksLikeUtf16(bytes)) throw new CutlineError(`${file} is neither a CSV text nor an XLSX workbook (it holds binary data): save the data as CSV UTF-8 or .xlsx`);
   return parseCsv(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length), file);
 }

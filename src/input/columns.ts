@@ -4,7 +4,7 @@
  * first offending row; missing values become a mask, never a silent NaN.
  */
 import { CutlineError } from '../engine/errors';
-import { cellLabel, cellNumber, showCell } from './cells';
+import { cellLabel, cellNumber, decimalCommaHint, showCell, trimBlank } from './cells';
 import { Table } from './table';
 
 export interface NumericColumn {
@@ -24,19 +24,38 @@ export interface LabelColumn {
 
 export type ColumnRole = 'score' | 'treated' | 'outcome' | 'covariate' | 'cluster' | 'within';
 
+/** A column name (or a name given) for a message: quoted, and cut after 40 characters as cell values are. */
+function showName(name: string): string {
+  return showCell(name);
+}
+
+/** Roles without which no estimate exists: a column of them that is entirely missing is an error here. */
+const REQUIRED: ReadonlySet<ColumnRole> = new Set(['score', 'treated', 'outcome']);
+
+function requireSomeValue(table: Table, c: number, role: ColumnRole, missing: Uint8Array): void {
+  if (!REQUIRED.has(role) || missing.length === 0) return;
+  for (let r = 0; r < missing.length; r++) if (!missing[r]) return;
+  throw new CutlineError(
+    `column ${showName(table.header[c])} (${role}) is missing on every one of its ${missing.length} rows (blank, or NA, N/A, #N/A, .); ` +
+      'check that this is the intended column, or fill in its values',
+  );
+}
+
 /** Index of a named column; the message lists what the table has. */
 export function findColumn(table: Table, name: string, role: string): number {
-  if (name.trim() === '') throw new CutlineError(`${role} needs a column name, got an empty one`);
+  if (trimBlank(name) === '') throw new CutlineError(`${role} needs a column name, got an empty one`);
   // An exact match wins; else a match ignoring case. Two matches: refuse rather than guess.
   for (const same of [(h: string) => h === name, (h: string) => h.toLowerCase() === name.toLowerCase()]) {
     const hits = table.header.flatMap((h, k) => (same(h) ? [k] : []));
     if (hits.length > 1) {
-      throw new CutlineError(`${role}: the header has ${hits.length} columns named ${JSON.stringify(name)} (columns ${hits.map((k) => k + 1).join(', ')}); rename them`);
+      throw new CutlineError(`${role}: the header has ${hits.length} columns named ${showName(name)} (columns ${hits.map((k) => k + 1).join(', ')}); rename them`);
     }
     if (hits.length === 1) return hits[0];
   }
-  const shown = table.header.slice(0, 12).map((h) => JSON.stringify(h)).join(', ');
-  throw new CutlineError(`${role}: no column named ${JSON.stringify(name)}; the columns are ${shown}${table.header.length > 12 ? ', …' : ''}`);
+  // Twelve names at most, each cut as a cell value is: a header can be megabytes long.
+  const shown = table.header.slice(0, 12).map(showName).join(', ');
+  const more = table.header.length > 12 ? `, … (${table.header.length} columns in all)` : '';
+  throw new CutlineError(`${role}: no column named ${showName(name)}; the columns are ${shown}${more}`);
 }
 
 export function numericColumn(table: Table, name: string, role: ColumnRole): NumericColumn {
@@ -50,10 +69,10 @@ export function numericColumn(table: Table, name: string, role: ColumnRole): Num
       missing[r] = 1;
     } else if (v === undefined) {
       const what = binary ? 'treated must be 0, 1, TRUE or FALSE' : 'not a number';
-      throw new CutlineError(`column ${JSON.stringify(table.header[c])} (${role}), row ${r + table.firstRow}: ${what}, found ${showCell(cell)}`);
+      throw new CutlineError(`column ${showName(table.header[c])} (${role}), row ${r + table.firstRow}: ${what}, found ${showCell(cell)}${decimalCommaHint(cell)}`);
     } else if (binary && v !== 0 && v !== 1) {
       throw new CutlineError(
-        `column ${JSON.stringify(table.header[c])} (treated), row ${r + table.firstRow}: treated must be 0, 1, TRUE or FALSE, found ${showCell(cell)}`,
+        `column ${showName(table.header[c])} (treated), row ${r + table.firstRow}: treated must be 0, 1, TRUE or FALSE, found ${showCell(cell)}`,
       );
     } else {
       values[r] = v;
@@ -69,11 +88,13 @@ export function numericColumn(table: Table, name: string, role: ColumnRole): Num
         s++;
       } else if (binary && !missing[r] && values[r] !== 0 && values[r] !== 1) read(r, values, missing);
     }
+    requireSomeValue(table, c, role, missing);
     return { name: table.header[c], values, missing };
   }
   const values = new Float64Array(n);
   const missing = new Uint8Array(n);
   for (let r = 0; r < n; r++) read(r, values, missing);
+  requireSomeValue(table, c, role, missing);
   return { name: table.header[c], values, missing };
 }
 

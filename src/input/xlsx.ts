@@ -3,6 +3,8 @@
  * worksheet unless `sheet` names one; the first row is the header. Formula
  * cells give their cached result; rich text gives its plain text; dates give
  * their serial-free ISO text (and so are rejected as numbers, by name).
+ * Merged cells: only the top-left cell of a merged range holds the value;
+ * the other cells of the range are blank, as Excel treats them.
  */
 import type ExcelJS from 'exceljs';
 import { CutlineError } from '../engine/errors';
@@ -31,7 +33,7 @@ export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string,
   try {
     await wb.xlsx.load(bytes as ArrayBuffer);
   } catch {
-    throw new CutlineError(`${source} cannot be read as an .xlsx workbook`);
+    throw new CutlineError(`${source} cannot be read as an .xlsx workbook: open it in a spreadsheet and save it again as .xlsx (or as CSV UTF-8)`);
   }
   const ws = sheet === undefined ? wb.worksheets[0] : wb.getWorksheet(sheet);
   if (!ws) {
@@ -45,6 +47,9 @@ export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string,
   ws.eachRow({ includeEmpty: true }, (row, rowNumber) => {
     const cells: Cell[] = new Array(width).fill(null);
     row.eachCell({ includeEmpty: false }, (cell, col) => {
+      // A merged range keeps its value in the top-left cell; exceljs repeats it in
+      // the hidden cells, which Excel itself treats as blank.
+      if (cell.isMerged && cell.master !== cell && cell.master.address !== cell.address) return;
       if (col <= width) cells[col - 1] = plain(cell.value);
     });
     rows[rowNumber - 1] = cells;
@@ -56,6 +61,6 @@ export async function parseXlsx(bytes: ArrayBuffer | Uint8Array, sheet?: string,
     throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} is empty${others}`);
   }
   const table = tableFromRows(rows);
-  if (table.rowCount === 0) throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} has a header but no data rows`);
+  if (table.rowCount === 0) throw new CutlineError(`${source}: the worksheet ${JSON.stringify(ws.name)} has a header but no data rows: the data must start on row 2, below the column names`);
   return table;
 }

@@ -23,13 +23,13 @@ function write(name: string, text: string): string {
 
 /** A small fuzzy design: take-up 0.2 → 0.7 at 0, effect 2 (deterministic, no randomness needed). */
 function design(n = 400): string {
-  const lines = ['score,treated,y,age'];
+  const lines = ['score,treated,y,age,rooms'];
   for (let i = 0; i < n; i++) {
     const r = -1 + (2 * (i + 0.5)) / n;
     const u = ((i * 7919) % 1000) / 1000;
     const d = u < (r >= 0 ? 0.7 : 0.2) ? 1 : 0;
     const y = 1 + r + 2 * d + Math.sin(i * 1.7) * 0.3;
-    lines.push(`${r.toFixed(5)},${d},${y.toFixed(5)},${30 + (i % 17)}`);
+    lines.push(`${r.toFixed(5)},${d},${y.toFixed(5)},${30 + (i % 17)},${2 + ((i * 3) % 5)}`);
   }
   return lines.join('\n') + '\n';
 }
@@ -57,7 +57,7 @@ describe('cutline check', () => {
   });
 
   test('validity, compliers, density and balance keys; Holm, sensitivity and bins', () => {
-    const r = run([...base(good), '--outcome', 'age', '--covariate', 'age', '--draws', '199', '--bins', '--json']);
+    const r = run([...base(good), '--outcome', 'age', '--covariate', 'rooms', '--draws', '199', '--bins', '--json']);
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);
     const v = j.outcomes[0].validity;
@@ -74,10 +74,10 @@ describe('cutline check', () => {
     expect(o.compliers.mean_treated - o.compliers.mean_untreated).toBeCloseTo(o.effect.estimate, 9);
     expect(['local_polynomial', 'mccrary']).toContain(j.density.method);
     expect(j.density.mccrary.bin).toBeGreaterThan(0);
-    expect(j.balance[0].name).toBe('age');
+    expect(j.balance[0].name).toBe('rooms');
     expect(j.balance[0]).toHaveProperty('permutation_pvalue');
-    expect(j.bins.map((b: { name: string }) => b.name)).toEqual(['treated', 'y', 'age', 'age']);
-    const same = run([...base(good), '--outcome', 'age', '--covariate', 'age', '--draws', '199', '--bins', '--json']);
+    expect(j.bins.map((b: { name: string }) => b.name)).toEqual(['treated', 'y', 'age', 'rooms']);
+    const same = run([...base(good), '--outcome', 'age', '--covariate', 'rooms', '--draws', '199', '--bins', '--json']);
     expect(same.out).toBe(r.out); // same seed, same document
     const off = JSON.parse(run([...base(good), '--sensitivity', 'off', '--draws', '99', '--json']).out);
     expect(off.outcomes[0].validity.by_bandwidth).toHaveLength(1);

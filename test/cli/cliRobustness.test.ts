@@ -217,7 +217,7 @@ describe('headers and CSV dialects', () => {
 
 describe('designs at the edges', () => {
   test('one row per side, and too few rows', () => {
-    expectRefused(run([write('tworows.csv', 'score,treated,y\n-1,0,1\n1,1,3\n'), ...opts()]), /too few units near the cutoff .*1 below, 1 above/);
+    expectRefused(run([write('tworows.csv', 'score,treated,y\n-1,0,1\n1,1,3\n'), ...opts()]), /too few units near the cutoff to choose a bandwidth: within [\d.]+ of it the score has 1 below and 1 above \(1 and 1 distinct scores\).*give a bandwidth/);
     expectRefused(run([write('six.csv', 'score,treated,y\n-1,0,1\n-0.5,1,2\n-0.2,0,1.5\n0.1,1,3\n0.4,0,2\n0.9,1,4\n'), ...opts()]), /at least 3 are needed/);
   });
 
@@ -272,7 +272,7 @@ describe('designs at the edges', () => {
     const d = expectJson(run([ties(), ...opts('--json')]));
     expect(d.bandwidth.value).toBeGreaterThan(3);
     expect(d.warnings.join(' ')).toMatch(/distinct scores below the cutoff/);
-    expectRefused(run([ties(), ...opts('--bandwidth', '3')]), /too few distinct scores \(2\) for the bias correction's quadratic fit/);
+    expectRefused(run([ties(), ...opts('--bandwidth', '3')]), /holds only 2 distinct scores; the bias-corrected interval fits a curve and needs at least 3 — widen the bandwidth/);
     const j = expectJson(run([ties(), ...opts('--bandwidth', '4', '--json')]));
     expect(j.warnings.join(' ')).toMatch(/only 3 distinct scores below the cutoff/);
     expect(j.density.warnings.join(' ')).toMatch(/few distinct values/);

@@ -80,8 +80,8 @@ function sideCurvature(
   );
   if (!beta) {
     throw new CutlineError(
-      `the ik rule's quadratic pilot fit ${above ? 'above' : 'below'} the cutoff has too few distinct scores ` +
-        `(${rows.length} units within ${h2.toPrecision(4)}); type a bandwidth instead`,
+      `the score takes too few distinct values within ${h2.toPrecision(4)} ${above ? 'above' : 'below'} the cutoff ` +
+        `(${rows.length} units) for the ik rule to measure the curvature of the data (it needs 3); give a bandwidth instead`,
     );
   }
   const m2 = (2 * beta[2]) / (scale * scale);

@@ -52,8 +52,9 @@ function computePilots(score: ArrayLike<number>, cutoff: number): Pilots {
   const above = order.slice(c0, hi);
   if (below.length < 2 || above.length < 2) {
     throw new CutlineError(
-      `too few units near the cutoff for the pilot bandwidth ${h1.toPrecision(4)} ` +
-        `(${below.length} below, ${above.length} above; at least 2 each are needed)`,
+      `too few units near the cutoff to choose a bandwidth: within ${h1.toPrecision(4)} of it the score has ` +
+        `${below.length} below and ${above.length} above (${distinctAt(score, below)} and ${distinctAt(score, above)} distinct scores), and the rule needs at least 2 on each side; ` +
+        'give a bandwidth wide enough to hold several distinct scores on each side, or check the score column and the cutoff',
     );
   }
   return {
@@ -64,6 +65,13 @@ function computePilots(score: ArrayLike<number>, cutoff: number): Pilots {
     density: (below.length + above.length) / (2 * n * h1),
     near: { below, above },
   };
+}
+
+/** How many distinct scores the units `idx` hold (for messages). */
+function distinctAt(score: ArrayLike<number>, idx: ArrayLike<number>): number {
+  const seen = new Set<number>();
+  for (let t = 0; t < idx.length; t++) seen.add(score[idx[t]]);
+  return seen.size;
 }
 
 function pick(values: ArrayLike<number>, idx: Int32Array): Float64Array {
@@ -166,7 +174,7 @@ export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<numb
     xtx = { scale, cutoff, inv: invertSmall(a) };
     cubicCache.set(band, xtx);
   }
-  if (!xtx.inv) throw new CutlineError('the scores between the two side medians take too few values for the pilot cubic fit');
+  if (!xtx.inv) throw new CutlineError('the score takes too few distinct values between the medians of the two sides for the bandwidth rule to measure the curvature of the data (a cubic needs 4); give a bandwidth');
   const xty = [0, 0, 0, 0, 0];
   const r = valuesAt(band, score);
   const vs = valuesAt(band, values);

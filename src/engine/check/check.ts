@@ -22,6 +22,8 @@ import { KernelName } from '../fit/kernels';
 import { compact, completeRows } from '../data/listwise';
 import { VarianceName } from '../fit/residuals';
 import { applyWeights, boundaryWindow, sortedOrder } from '../fit/boundaryWindow';
+import { clusterWarnings } from './designWarnings';
+import { emptySideMessage, noRowMessage } from './emptySide';
 import { balanceSection, BalanceRow, binnedSeries, BinnedSeries, densitySection, DensitySection } from './designChecks';
 import { bandwidthMse } from '../bandwidth/bandwidthMse';
 import { widenForTies } from '../bandwidth/bandwidthTies';
@@ -162,7 +164,7 @@ export function prepare(input: CheckInput, outcome?: DataColumn, withCells = fal
   const masks = [input.score.missing, input.treated.missing, outcome?.missing, input.cluster?.missing, donut];
   if (withCells) masks.push(input.within?.missing);
   const { rows, dropped } = completeRows(n, masks);
-  if (rows.length === 0) throw new CutlineError('no row has every column the check needs; nothing to estimate');
+  if (rows.length === 0) throw new CutlineError(noRowMessage(input, outcome, withCells, donut));
   return {
     rows,
     dropped,
@@ -197,7 +199,7 @@ export function testBandwidth(score: Float64Array, treated: Float64Array, cutoff
     if (!(e instanceof CutlineError)) throw e;
     value = h * shrink;
     warnings.push(
-      `the mse bandwidth of the take-up jump cannot be computed (${e.message}); the validity test uses the estimates' bandwidth × n^(−1/20) = ${fmt(value)}`,
+      `the validity test's usual bandwidth (from the take-up jump) cannot be computed (${e.message}); it uses the estimates' bandwidth, shrunk slightly for the number of rows, ${fmt(value)}`,
     );
   }
   const w = widenForTies(score, cutoff, value, 2);
@@ -245,13 +247,14 @@ export function requireVaries(v: Float64Array, what: string, why: string): void 
 }
 
 /** Read off the sorted order that every window uses anyway: its ends and where the cutoff falls. */
-export function checkSides(score: Float64Array, cutoff: number): void {
+function checkSides(score: Float64Array, cutoff: number, explain?: (below: boolean) => string | undefined): void {
   const order = sortedOrder(score);
   const lo = score[order[0]];
   const hi = score[order[order.length - 1]];
   if (lo === hi) throw new CutlineError(`--score: the score is constant (every used row is ${lo}); there is no discontinuity to study`);
-  if (!(lo < cutoff)) throw new CutlineError(`--cutoff: no unit has a score below the cutoff ${cutoff}`);
-  if (!(hi >= cutoff)) throw new CutlineError(`--cutoff: no unit has a score at or above the cutoff ${cutoff}`);
+  // Missing values in other columns can empty a side the score itself fills: then they are at fault, not the cutoff.
+  if (!(lo < cutoff)) throw new CutlineError(explain?.(true) ?? `--cutoff: no unit has a score below the cutoff ${cutoff}`);
+  if (!(hi >= cutoff)) throw new CutlineError(explain?.(false) ?? `--cutoff: no unit has a score at or above the cutoff ${cutoff}`);
 }
 
 export function runCheck(input: CheckInput, options: CheckOptions): CheckResult {
@@ -266,23 +269,26 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   // Each outcome's listwise rows, selected once for the checks, estimates and bins below.
   const prepared = input.outcomes.map((col) => prepare(input, col, false, donut?.mask));
   const first = prepared[0];
-  checkSides(first.score, cutoff);
+  checkSides(first.score, cutoff, (below) => emptySideMessage(input, input.outcomes[0], cutoff, below, donut?.mask));
   requireVaries(first.treated, `--treated: column ${JSON.stringify(input.treated.name)}`, 'take-up cannot jump');
   input.outcomes.forEach((col, j) => {
     requireVaries(prepared[j].outcome!, `--outcome: column ${JSON.stringify(col.name)}`, 'there is no jump to estimate or test');
   });
-  const bw = chooseBandwidth(first.score, first.outcome!, cutoff, {
-    rule: options.rule,
-    kernel,
-    typed: options.bandwidth,
-    treated: first.treated,
-  });
+  const bwOptions = { rule: options.rule, kernel, typed: options.bandwidth, treated: first.treated };
+  const bw = blameDonut(
+    options.donut,
+    () => chooseBandwidth(first.score, first.outcome!, cutoff, bwOptions),
+    () => {
+      const all = prepare(input, input.outcomes[0]);
+      chooseBandwidth(all.score, all.outcome!, cutoff, { ...bwOptions, treated: all.treated });
+    },
+  );
   const h = bw.value;
   const warnings: string[] = [...bw.warnings];
 
   // Take-up on its own rows; its sign decides the eligible side.
   const tk = prepare(input, undefined, false, donut?.mask);
-  checkSides(tk.score, cutoff);
+  checkSides(tk.score, cutoff, (below) => emptySideMessage(input, undefined, cutoff, below, donut?.mask));
   const tkWin = boundaryWindow(tk.score, cutoff, h, kernel);
   // Windows depend on the rows alone: outcomes with the take-up's rows share its window.
   const sameRows = (a: Int32Array): boolean => a.length === tk.rows.length && a.every((v, i) => v === tk.rows[i]);
@@ -294,6 +300,9 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
       'take-up falls at the cutoff: eligibility is taken to be below the cutoff, and every jump is reported as below minus above',
     );
   }
+  if (variance === 'cluster' && tk.clusters && input.cluster) {
+    warnings.push(...clusterWarnings(tk.clusters, tkWin.below.index, tkWin.above.index, input.cluster.labels, input.cluster.name));
+  }
   const opts = { bandwidth: h, kernel, variance, sign, level: options.level };
   const takeupEst = estimatesAtCutoff(tk.score, tk.treated, tk.treated, cutoff, { ...opts, clusters: tk.clusters, window: tkWin });
   for (const w of takeupEst.warnings) if (!warnings.includes(w)) warnings.push(w);
@@ -301,9 +310,10 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   // The validity test's bandwidth: undersmoothed mse of take-up (docs/methods.md §4.9), or the typed one.
   const testH = options.bandwidth ?? testBandwidth(tk.score, tk.treated, cutoff, kernel, h, warnings);
   const multiples = (options.sensitivity ?? DEFAULT_SENSITIVITY).filter((m) => m !== 1);
+  if (options.sensitivity) checkMultiples(multiples, testH, tk.score);
   if (variance === 'cluster') {
     warnings.push(
-      'the outcome–treatment test treats units as independent (hc0 variances and unit-level multipliers, METHODS §4); the cluster variance applies to the estimates only',
+      'the outcome–treatment test treats units as independent (it ignores the clusters); the cluster variance applies to the estimates only',
     );
   }
   const vopts = {
@@ -329,7 +339,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     const vp = input.within ? prepare(input, col, true, donut?.mask) : p;
     if (vp.rows.length < p.rows.length) {
       own.push(
-        `${p.rows.length - vp.rows.length} rows with a missing ${input.within!.name} were left out of the validity test within its cells (METHODS §1: listwise)`,
+        `${p.rows.length - vp.rows.length} rows with a missing ${input.within!.name} were left out of the validity test within its cells`,
       );
     }
     const cellLabels = input.within?.labels;
@@ -434,6 +444,48 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     donut: donut && { radius: donut.radius, excluded: donut.excluded },
     warnings,
   };
+}
+
+/** A bandwidth rule that fails with the donut cut out but not without it: the donut is named as the cause. */
+function blameDonut<T>(donut: number | undefined, f: () => T, withoutDonut: () => void): T {
+  try {
+    return f();
+  } catch (e) {
+    if (!(e instanceof CutlineError) || donut === undefined) throw e;
+    try {
+      withoutDonut();
+    } catch {
+      throw e;
+    }
+    throw new CutlineError(
+      `the donut (radius ${donut}) leaves too few units or distinct scores near the cutoff for the bandwidth rule (it works without the donut); choose a smaller donut, or give a bandwidth`,
+    );
+  }
+}
+
+/** Widest window, in multiples of the larger of the score's range and the test bandwidth, that the sensitivity table may ask for. */
+export const MAX_SPREAD = 10;
+
+/**
+ * A sensitivity multiple whose window spans more than MAX_SPREAD times the
+ * scores' range adds nothing (every unit is in the window long before) and
+ * says the multiple was a slip: refused, naming the largest sensible one.
+ */
+function checkMultiples(multiples: number[], testH: number, score: Float64Array): void {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < score.length; i++) {
+    if (score[i] < lo) lo = score[i];
+    if (score[i] > hi) hi = score[i];
+  }
+  const limit = MAX_SPREAD * Math.max(hi - lo, testH);
+  const bad = multiples.find((m) => m * testH > limit);
+  if (bad !== undefined) {
+    throw new CutlineError(
+      `the sensitivity multiple ${bad} makes the validity test's bandwidth ${fmt(bad * testH)}, more than ${MAX_SPREAD} times the range of the scores (${fmt(lo)} to ${fmt(hi)}); ` +
+        `choose multiples up to ${fmt(limit / testH)}`,
+    );
+  }
 }
 
 /** Rows inside the donut |score − cutoff| < r (missing scores are left to the listwise rule). */

@@ -138,6 +138,10 @@ export function balanceSection(
 ): BalanceRow[] {
   const rows: BalanceRow[] = covariates.map((c) => {
     const row: BalanceRow = { name: c.name, rows: { used: c.score.length, dropped: c.dropped }, warnings: [] };
+    if (c.values.length === 0) {
+      row.warnings.push(`${c.name} is missing on every row that has a score: there is nothing to test`);
+      return row;
+    }
     if (isConstant(c.values)) {
       row.warnings.push(`${c.name} is constant on the rows used: there is nothing to test`);
       return row;

@@ -273,8 +273,8 @@ function fitPositions(
   if (withQuadratic) {
     if (distinct < 3 || n < 4) {
       throw new CutlineError(
-        `the window (bandwidth ${fmt(h)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) ` +
-          `for the bias correction's quadratic fit — widen the bandwidth`,
+        `the window (bandwidth ${fmt(h)}) ${sideName(above)} the cutoff holds only ${distinct} distinct score${distinct === 1 ? '' : 's'}; ` +
+          `the bias-corrected interval fits a curve and needs at least 3 — widen the bandwidth`,
       );
     }
     const [q0, q1, q2] = polyWeights(x, k, h, 2, above);
@@ -307,7 +307,7 @@ export function curvatureWeights(
   const { x, k, distinct } = coordinates(score, cutoff, b, kernel, index);
   if (n < 4 || distinct < 3) {
     throw new CutlineError(
-      `the curvature pilot (bandwidth ${fmt(b)}) ${sideName(above)} the cutoff holds too few distinct scores (${distinct}) for a quadratic fit — type a bandwidth instead`,
+      `the score takes only ${distinct} distinct value${distinct === 1 ? '' : 's'} within ${fmt(b)} ${sideName(above)} the cutoff, too few for the bandwidth rule to measure the data's curvature (it needs 3); give a bandwidth instead`,
     );
   }
   return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2] };

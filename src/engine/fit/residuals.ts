@@ -65,43 +65,91 @@ export function nnResiduals(side: SortedSide, values: ArrayLike<number>, J = NN_
   return rememberedFor(nnCache, side, values as object, () => computeNn(side, values, J));
 }
 
+/**
+ * The neighbour set of a unit depends only on its score, so the work is done
+ * per distinct score: units with one score form a group (count, sum of V);
+ * for each group the J-th smallest distance to the other units is found by
+ * walking outwards over groups (each holds at least one unit, so at most J
+ * groups are visited), every group within that distance (up to 1e-12
+ * relative) is found by binary search, and the neighbour mean of each unit is
+ * (sum of those groups − its own V)/(their count − 1). The cost is O(n) plus
+ * O(J + log n) per distinct score, whatever the ties: the earlier unit-by-unit
+ * walk cost n × (size of the largest tie group). Sums within a group are
+ * compensated (Neumaier) so that a large group's sum minus one value keeps
+ * the precision of a direct sum.
+ */
 function computeNn(side: SortedSide, values: ArrayLike<number>, J: number): Float64Array {
-  const { index, x } = side;
-  const n = index.length;
+  const { x } = side;
+  const n = x.length;
   const v = gathered(side, values);
   const e = new Float64Array(n);
   const jj = Math.min(J, n - 1);
-  for (let t = 0; t < n; t++) {
-    let l = t - 1;
-    let r = t + 1;
-    let sum = 0;
-    let count = 0;
+  if (jj <= 0) return e;
+  // Groups of equal scores (x is sorted): start, count, compensated sum.
+  const start = new Int32Array(n + 1);
+  const sums = new Float64Array(n);
+  let G = 0;
+  for (let t = 0; t < n; ) {
+    let u = t;
+    let s = 0;
+    let comp = 0;
+    while (u < n && x[u] === x[t]) {
+      const a = v[u];
+      const y = s + a;
+      comp += Math.abs(s) >= Math.abs(a) ? s - y + a : a - y + s;
+      s = y;
+      u++;
+    }
+    start[G] = t;
+    sums[G] = s + comp;
+    G++;
+    t = u;
+  }
+  start[G] = n;
+  const value = (g: number): number => x[start[g]];
+  const size = (g: number): number => start[g + 1] - start[g];
+  for (let g = 0; g < G; g++) {
+    const xg = value(g);
+    // The jj-th smallest distance from a unit of group g to the others.
+    let need = jj - (size(g) - 1);
     let last = 0;
-    const xt = x[t];
-    for (let c = 0; c < jj; c++) {
-      // The closer of the next unit on the left and on the right (the order of equals does not matter: all ties are taken below).
-      if (r >= n || (l >= 0 && xt - x[l] <= x[r] - xt)) {
-        last = xt - x[l];
-        sum += v[l--];
+    let l = g - 1;
+    let r = g + 1;
+    while (need > 0) {
+      // The closer of the next group on the left and on the right (left on a tie, as both are taken below).
+      if (r >= G || (l >= 0 && xg - value(l) <= value(r) - xg)) {
+        last = xg - value(l);
+        need -= size(l--);
       } else {
-        last = x[r] - xt;
-        sum += v[r++];
+        last = value(r) - xg;
+        need -= size(r++);
       }
-      count++;
     }
-    // Every further unit as far as the J-th neighbour, up to rounding (1e-12
-    // relative: equal spacings of a grid differ in their last bits, and the
-    // choice must not depend on the score's scale).
+    // Every group as far as the jj-th neighbour, up to rounding (1e-12 relative:
+    // equal spacings of a grid differ in their last bits, and the choice must
+    // not depend on the score's scale).
     const reach = last + last * 1e-12;
-    while (l >= 0 && xt - x[l] <= reach) {
-      sum += v[l--];
-      count++;
+    let lo = 0;
+    let hi = g; // first group with xg − value ≤ reach, in [0, g]
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (xg - value(mid) <= reach) hi = mid;
+      else lo = mid + 1;
     }
-    while (r < n && x[r] - xt <= reach) {
-      sum += v[r++];
-      count++;
+    const first = lo;
+    lo = g;
+    hi = G - 1; // last group with value − xg ≤ reach, in [g, G − 1]
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (value(mid) - xg <= reach) lo = mid;
+      else hi = mid - 1;
     }
-    e[t] = count > 0 ? Math.sqrt(count / (count + 1)) * (v[t] - sum / count) : 0;
+    const lastGroup = lo;
+    let total = 0;
+    for (let k = first; k <= lastGroup; k++) total += sums[k];
+    const count = start[lastGroup + 1] - start[first] - 1;
+    const f = Math.sqrt(count / (count + 1));
+    for (let t = start[g]; t < start[g + 1]; t++) e[t] = f * (v[t] - (total - v[t]) / count);
   }
   return e;
 }

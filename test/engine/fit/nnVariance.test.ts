@@ -13,6 +13,7 @@ import { jumpAt } from '../../../src/engine/fit/jumpAt';
 import { KernelName } from '../../../src/engine/fit/kernels';
 import { nnResiduals } from '../../../src/engine/fit/residuals';
 import { readCsv, readJson, rel } from '../../fixtures/estimates/readFixture';
+import { nnBruteForce } from '../../helpers/nnBruteForce';
 
 const SOURCE = 'NumPy, brute-force nearest neighbours, test/fixtures/estimates/make_nn.py';
 
@@ -92,5 +93,28 @@ test('nn standard errors do not depend on the order of the rows (all ties at the
     const b = jumpAt(boundaryWindow(shuffled(D.score), 0, 3.5, kernel), shuffled(D.y_row), { variance: 'nn' });
     expect(rel(b.se, a.se)).toBeLessThan(1e-12);
     expect(rel(b.se_robust, a.se_robust)).toBeLessThan(1e-12);
+  }
+});
+
+test('grouped nn residuals equal the unit-by-unit rule whatever the ties (reference: test/helpers/nnBruteForce.ts)', () => {
+  // Seeded data: whole-number scores, one repeated score, a tie group beside singletons, sides of 1–4 units.
+  let s = 12345;
+  const rand = (): number => ((s = (s * 1103515245 + 12345) % 2147483648) / 2147483648);
+  const designs: Array<[string, (i: number) => number, number]> = [
+    ['whole numbers', () => Math.floor(rand() * 12), 300],
+    ['one repeated score', () => 4, 200],
+    ['a tie group among singletons', (i) => (i % 3 === 0 ? 2 : rand() * 5), 150],
+    ['grid with spacing 0.1', () => Math.floor(rand() * 30) * 0.1, 250],
+    ['continuous', () => rand(), 200],
+    ['two units', () => Math.floor(rand() * 2), 2],
+    ['four units, two scores', (i) => i % 2, 4],
+  ];
+  for (const [, draw, n] of designs) {
+    const x = Float64Array.from({ length: n }, (_, i) => draw(i)).sort();
+    const v = Float64Array.from({ length: n }, () => rand() * 10 - 3);
+    const side = { index: Int32Array.from({ length: n }, (_, i) => i), x };
+    const ours = nnResiduals(side, v);
+    const ref = nnBruteForce(x, v);
+    for (let i = 0; i < n; i++) expect(Math.abs(ours[i] - ref[i])).toBeLessThan(1e-10 * (1 + Math.abs(ref[i])));
   }
 });
