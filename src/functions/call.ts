@@ -6,9 +6,9 @@
  * error value that names the argument and the first bad cell.
  */
 import { EstimateOptions, ValidityOptions } from '../engine/index';
-import { RangeArgument, RangeColumn, rangeColumns, RangeInputError } from '../input/range';
+import { RangeColumn, rangeColumns, RangeInputError } from '../input/range';
 import { readSettings, Settings } from '../input/settings';
-import { BoundedCache, hashCells } from './cache';
+import { BoundedCache, hashColumn } from './cache';
 import { excelError, toExcelError } from './excelError';
 
 /** The part of the runtime's invocation object Cutline reads. */
@@ -42,25 +42,18 @@ export function cacheSizes(): { columns: number; results: number } {
   return { columns: columns.size, results: results.size };
 }
 
-/** A key for the contents of a call's ranges (a hash of each range's cells and its role). */
-export function rangesKey(specs: RangeSpec[]): { key: string; hashes: string[] } {
-  const hashes = specs.map((s) => {
-    if (!Array.isArray(s.cells)) throw new RangeInputError(`${s.argument} must be a range of cells`, s.argument, 'shape');
-    return hashCells(s.cells);
-  });
-  return { key: hashes.map((h, k) => `${h}|${specs[k].binary ? 1 : 0}`).join('/'), hashes };
-}
-
-/** Checked columns of one call, each remembered by its cells' hash (`hashes` from rangesKey). */
-export function readRanges(specs: RangeSpec[], hashes: string[], invocation?: InvocationLike | null): RangeColumn[] {
-  const args: Array<RangeArgument & { hash: string }> = specs.map((s, k) => ({
-    argument: s.argument,
-    cells: s.cells,
-    binary: s.binary,
-    address: invocation?.parameterAddresses?.[s.position],
-    hash: hashes[k],
-  }));
-  return rangeColumns(args, (a, header, n, read) => columns.get(`${(a as RangeArgument & { hash: string }).hash}|${a.binary ? 1 : 0}|${header}|${n}`, read));
+/**
+ * Checked columns of one call and a key for their contents. Each column is
+ * read afresh (one pass over its cells), hashed, and replaced by the
+ * remembered column with the same contents when there is one, so that every
+ * call on the same data hands the engine the same arrays.
+ */
+export function readRanges(specs: RangeSpec[], invocation?: InvocationLike | null): { cols: RangeColumn[]; key: string } {
+  const fresh = rangeColumns(
+    specs.map((s) => ({ argument: s.argument, cells: s.cells, binary: s.binary, address: invocation?.parameterAddresses?.[s.position] })),
+  );
+  const keys = fresh.map((c) => hashColumn(c.values, c.missing));
+  return { cols: fresh.map((c, k) => columns.get(keys[k], () => c)), key: keys.join('/') };
 }
 
 /** A number argument: finite, or a #VALUE! error naming it. */

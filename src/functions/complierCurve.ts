@@ -6,7 +6,6 @@
 import { ComplierCurveResult } from '../engine/index';
 import { rangeNumbers, RangeInputError } from '../input/range';
 import { Cell, cellOf, InvocationLike, Matrix } from './call';
-import { hashCells } from './cache';
 import { commonRows, table } from './detail';
 
 /** The arm: 1 (or TRUE, "treated") for treated compliers, 0 (FALSE, "untreated") for untreated ones. */
@@ -22,7 +21,8 @@ export function armArgument(v: unknown): 0 | 1 {
 export function atArgument(at: unknown, invocation: InvocationLike | null | undefined): { values: number[]; key: string; row: boolean } {
   const cells = Array.isArray(at) ? (at as unknown[][]) : [[at]];
   const values = rangeNumbers({ argument: 'at', cells, address: invocation?.parameterAddresses?.[4] });
-  return { values, key: hashCells(cells), row: cells.length === 1 && cells[0].length > 1 };
+  const row = cells.length === 1 && cells[0].length > 1;
+  return { values, key: `${row ? 'row' : 'column'}:${values.join(',')}`, row };
 }
 
 export function curveMatrix(r: ComplierCurveResult, what: string, detail: boolean, row: boolean): Matrix {

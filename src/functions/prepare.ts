@@ -12,7 +12,6 @@ import {
   flagArgument,
   InvocationLike,
   numberArgument,
-  rangesKey,
   RangeSpec,
   readRanges,
   settingsArgument,
@@ -20,13 +19,12 @@ import {
 } from './call';
 
 export interface PreparedCall {
-  /** The checked columns (read when first asked for: a remembered result needs only the key). */
-  readonly cols: RangeColumn[];
+  cols: RangeColumn[];
   cutoff: number;
   bandwidth?: number;
   settings: Settings;
   /** The engine's options, with the columns' missing masks. */
-  readonly opts: ValidityOptions;
+  opts: ValidityOptions;
   detail: boolean;
   /** The function, the columns' contents, cutoff, bandwidth and settings (the detail flag only changes the layout). */
   key: string;
@@ -45,28 +43,19 @@ export interface CallArguments {
 }
 
 export function prepareCall(fn: string, a: CallArguments, invocation?: InvocationLike | null): PreparedCall {
-  const { key, hashes } = rangesKey(a.ranges);
+  const { cols, key } = readRanges(a.ranges, invocation);
   const cutoff = numberArgument('cutoff', a.cutoff);
   const bandwidth = bandwidthArgument(a.bandwidth);
   const settings = settingsArgument(a.settings, invocation, a.settingsPosition);
   const detail = flagArgument(a.detail);
-  let cols: RangeColumn[] | undefined;
-  let opts: ValidityOptions | undefined;
+  const missing: Record<string, Uint8Array> = {};
+  a.ranges.forEach((r, k) => (missing[r.argument] = cols[k].missing));
   return {
-    get cols(): RangeColumn[] {
-      return (cols ??= readRanges(a.ranges, hashes, invocation));
-    },
-    get opts(): ValidityOptions {
-      if (!opts) {
-        const missing: Record<string, Uint8Array> = {};
-        a.ranges.forEach((r, k) => (missing[r.argument] = this.cols[k].missing));
-        opts = engineOptions(bandwidth, settings, missing);
-      }
-      return opts;
-    },
+    cols,
     cutoff,
     bandwidth,
     settings,
+    opts: engineOptions(bandwidth, settings, missing),
     detail,
     key: `${fn}|${key}|${cutoff}|${bandwidth ?? ''}|${settingsKey(settings)}|${a.extraKey ?? ''}`,
   };

@@ -133,11 +133,7 @@ export function cellPlace(a: RangeArgument, k: number): string {
  * The columns of one call, checked and of one length. Errors name the
  * argument and the first bad cell; a range of the wrong length names both lengths.
  */
-export function rangeColumns(
-  args: RangeArgument[],
-  /** Optional memory for the read columns (the worksheet functions' cache): `read()` is what it would hold for (a, header, n). */
-  memo?: (a: RangeArgument, header: number, n: number, read: () => RangeColumn) => RangeColumn,
-): RangeColumn[] {
+export function rangeColumns(args: RangeArgument[]): RangeColumn[] {
   const flat = args.map((a) => {
     const cells = view(a);
     const header = cells.length > 0 && isHeader(cells.at(0)) ? 1 : 0;
@@ -158,10 +154,7 @@ export function rangeColumns(
       );
     }
   }
-  return flat.map(({ a, header }) => {
-    const read = (): RangeColumn => readColumn(a, flatten(a), header, n);
-    return memo ? memo(a, header, n, read) : read();
-  });
+  return flat.map(({ a, header }) => readColumn(a, flatten(a), header, n));
 }
 
 function readColumn(a: RangeArgument, cells: unknown[], header: number, n: number): RangeColumn {
@@ -174,6 +167,10 @@ function readColumn(a: RangeArgument, cells: unknown[], header: number, n: numbe
     if (typeof cell === 'number' && cell === cell && cell !== Infinity && cell !== -Infinity) {
       if (a.binary && cell !== 0 && cell !== 1) throw bad(a, header + i, cell);
       values[i] = cell;
+      continue;
+    }
+    if (typeof cell === 'boolean') {
+      values[i] = cell ? 1 : 0;
       continue;
     }
     const code = errorCode(cell);

@@ -97,12 +97,3 @@ test('rangeNumbers: the `at` values, blanks and a title skipped', () => {
   expect(rangeNumbers({ argument: 'at', cells: col('bill', 100, '', 200, null) })).toEqual([100, 200]);
   expect(message(() => rangeNumbers({ argument: 'at', cells: col(1, 'abc') }))).toBe('at: row 2 of the range is not a number; it holds "abc"');
 });
-
-test('the memo hook is asked for each column with its title and length', () => {
-  const seen: Array<[string, number, number]> = [];
-  rangeColumns([{ argument: 'score', cells: col('s', 1, 2) }], (a, header, n, read) => {
-    seen.push([a.argument, header, n]);
-    return read();
-  });
-  expect(seen).toEqual([['score', 1, 2]]);
-});
