@@ -12,6 +12,7 @@ import {
   flagArgument,
   InvocationLike,
   numberArgument,
+  rangesKey,
   RangeSpec,
   readRanges,
   settingsArgument,
@@ -19,14 +20,15 @@ import {
 } from './call';
 
 export interface PreparedCall {
-  cols: RangeColumn[];
+  /** The checked columns (read when first asked for: a remembered result needs only the key). */
+  readonly cols: RangeColumn[];
   cutoff: number;
   bandwidth?: number;
   settings: Settings;
   /** The engine's options, with the columns' missing masks. */
-  opts: ValidityOptions;
+  readonly opts: ValidityOptions;
   detail: boolean;
-  /** The function, the columns' contents, cutoff, bandwidth and settings (the detail flag only changes the layout). */
+  /** The function, the ranges' cells, cutoff, bandwidth and settings (the detail flag only changes the layout). */
   key: string;
 }
 
@@ -43,21 +45,30 @@ export interface CallArguments {
 }
 
 export function prepareCall(fn: string, a: CallArguments, invocation?: InvocationLike | null): PreparedCall {
-  const { cols, key } = readRanges(a.ranges, invocation);
+  const cellsKey = rangesKey(a.ranges);
   const cutoff = numberArgument('cutoff', a.cutoff);
   const bandwidth = bandwidthArgument(a.bandwidth);
   const settings = settingsArgument(a.settings, invocation, a.settingsPosition);
   const detail = flagArgument(a.detail);
-  const missing: Record<string, Uint8Array> = {};
-  a.ranges.forEach((r, k) => (missing[r.argument] = cols[k].missing));
+  let cols: RangeColumn[] | undefined;
+  let opts: ValidityOptions | undefined;
   return {
-    cols,
+    get cols(): RangeColumn[] {
+      return (cols ??= readRanges(a.ranges, cellsKey, invocation));
+    },
+    get opts(): ValidityOptions {
+      if (!opts) {
+        const missing: Record<string, Uint8Array> = {};
+        a.ranges.forEach((r, k) => (missing[r.argument] = this.cols[k].missing));
+        opts = engineOptions(bandwidth, settings, missing);
+      }
+      return opts;
+    },
     cutoff,
     bandwidth,
     settings,
-    opts: engineOptions(bandwidth, settings, missing),
     detail,
-    key: `${fn}|${key}|${cutoff}|${bandwidth ?? ''}|${settingsKey(settings)}|${a.extraKey ?? ''}`,
+    key: `${fn}|${cellsKey}|${cutoff}|${bandwidth ?? ''}|${settingsKey(settings)}|${a.extraKey ?? ''}`,
   };
 }
 

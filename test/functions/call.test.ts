@@ -2,7 +2,8 @@
 // arrays (as Excel passes them at each recalculation) give the very same
 // column arrays, so the engine's per-array memories hit; results are
 // remembered by key; arguments are checked by name.
-import { bandwidthArgument, cacheSizes, flagArgument, forgetAll, numberArgument, readRanges, remembered } from '../../src/functions/call';
+import { hashCells } from '../../src/functions/cache';
+import { bandwidthArgument, cacheSizes, flagArgument, forgetAll, numberArgument, rangesKey, readRanges, remembered } from '../../src/functions/call';
 import { RangeInputError } from '../../src/input/range';
 
 const col = (...cells: unknown[]): unknown[][] => cells.map((c) => [c]);
@@ -14,15 +15,36 @@ const specs = (score: unknown[][], treated: unknown[][]) => [
 beforeEach(() => forgetAll());
 
 test('equal contents share one prepared column; cells that mean the same too', () => {
-  const a = readRanges(specs(col('score', 1, 2, 3, ''), col(0, 1, 1, null)));
-  const b = readRanges(specs(col(1, 2, 3), col(false, true, 'TRUE', '')));
-  expect(b.cols[0].values).toBe(a.cols[0].values);
-  expect(b.cols[1].values).toBe(a.cols[1].values);
-  expect(b.key).toBe(a.key);
-  expect(cacheSizes().columns).toBe(2);
-  const c = readRanges(specs(col(1, 2, 4), col(0, 1, 1)));
-  expect(c.cols[0].values).not.toBe(a.cols[0].values);
-  expect(c.key).not.toBe(a.key);
+  const read = (s: ReturnType<typeof specs>) => readRanges(s, rangesKey(s));
+  const a = read(specs(col('score', 1, 2, 3, ''), col(0, 1, 1, null)));
+  const b = read(specs(col(1, 2, 3), col(false, true, 'TRUE', '')));
+  // Different cells, so different call keys; the same contents, so the same arrays.
+  expect(rangesKey(specs(col(1, 2, 3), col(false, true, 'TRUE', '')))).not.toBe(rangesKey(specs(col('score', 1, 2, 3, ''), col(0, 1, 1, null))));
+  expect(b[0].values).toBe(a[0].values);
+  expect(b[1].values).toBe(a[1].values);
+  expect(cacheSizes()).toEqual({ calls: 2, columns: 2, results: 0 });
+  // Equal cells in new arrays: the same call key, nothing read again.
+  expect(read(specs(col(1, 2, 3), col(false, true, 'TRUE', '')))).toBe(b);
+  const c = read(specs(col(1, 2, 4), col(0, 1, 1)));
+  expect(c[0].values).not.toBe(a[0].values);
+  expect(c[1].values).toBe(a[1].values);
+});
+
+test('the cells key changes with any cell, its kind, or the shape', () => {
+  const base = [[1], [2.5], [''], [null], ['NA'], [true], [{ code: '#N/A' }]];
+  const key = hashCells(base);
+  expect(hashCells(base.map((r) => [...r]))).toBe(key);
+  const variants: unknown[][][] = [
+    [[1], [2.5000000000000004], [''], [null], ['NA'], [true], [{ code: '#N/A' }]],
+    [[1], [2.5], [null], [null], ['NA'], [true], [{ code: '#N/A' }]],
+    [[1], [2.5], [''], [null], ['NB'], [true], [{ code: '#N/A' }]],
+    [[1], [2.5], [''], [null], ['NA'], [1], [{ code: '#N/A' }]],
+    [[1], [2.5], [''], [null], ['NA'], [false], [{ code: '#N/A' }]],
+    [[1], [2.5], [''], [null], ['NA'], [true], [{ code: '#DIV/0!' }]],
+    [[1, 2.5, '', null, 'NA', true, { code: '#N/A' }]],
+    [[-0], [2.5], [''], [null], ['NA'], [true], [{ code: '#N/A' }]],
+  ];
+  expect(new Set([key, ...variants.map(hashCells)]).size).toBe(variants.length + 1);
 });
 
 test('a result is computed once per key', () => {
