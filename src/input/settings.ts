@@ -9,7 +9,7 @@
  *   readSettings([['kernel', 'uniform'], ['draws', 1999], ['', '']], 'settings')
  *   // { kernel: 'uniform', draws: 1999 }
  */
-import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, MultiplierName, VarianceName } from '../engine/index';
+import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine/index';
 import { cellNumber, showCell } from './cells';
 import { errorCode, offsetAddress, RangeInputError } from './range';
 import { Cell } from './table';
@@ -39,7 +39,13 @@ type Kind = { choices: readonly string[] } | { number: 'positive' | 'whole' | 'n
 /** Every setting: its name as shown, the field it fills, what its value may be. */
 export const SETTINGS: ReadonlyArray<{ name: string; field: keyof Settings; kind: Kind; meaning: string }> = [
   { name: 'kernel', field: 'kernel', kind: { choices: KERNEL_NAMES }, meaning: 'kernel weights of the local fits (triangular)' },
-  { name: 'variance', field: 'variance', kind: { choices: ['nn', 'hc0', 'hc1'] }, meaning: 'standard errors: nearest-neighbour or heteroskedasticity-robust (nn)' },
+  // Not 'cluster': a worksheet function takes no cluster column.
+  {
+    name: 'variance',
+    field: 'variance',
+    kind: { choices: VARIANCE_NAMES.filter((v) => v !== 'cluster') },
+    meaning: `standard errors: nearest-neighbour or heteroskedasticity-robust (${VARIANCE_NAMES.find((v) => v !== 'cluster' && !v.startsWith('hc'))})`,
+  },
   { name: 'rule', field: 'rule', kind: { choices: BANDWIDTH_RULES }, meaning: 'bandwidth rule when no bandwidth is typed (mse)' },
   { name: 'eligible', field: 'eligible', kind: { choices: ['above', 'below'] }, meaning: 'side of the cutoff offered the treatment (read from the take-up jump)' },
   { name: 'level', field: 'level', kind: { number: 'level' }, meaning: 'confidence level of the intervals (0.95)' },
