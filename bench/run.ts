@@ -14,7 +14,7 @@ const benches: Array<[string, string[]]> = [
   ['bench/validityBench.ts', []],
   ['bench/densityBench.ts', []],
   ['bench/functionsBench.ts', []],
-  ['bench/validityMonteCarlo.ts', [quick ? '200' : '1000']],
+  ['bench/validityMonteCarlo.ts', quick ? ['--quick'] : []],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],
   ['bench/validitySizeBinding.ts', [quick ? '200' : '2000']],
   ['bench/bandwidthConvergence.ts', [quick ? '50' : '400']],

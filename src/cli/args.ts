@@ -27,6 +27,7 @@ export const CHECK_OPTIONS: Record<string, OptionSpec> = {
   grid: { value: true },
   trim: { value: true },
   multiplier: { value: true },
+  'trend-guard': { value: true },
   sensitivity: { value: true },
   within: { value: true },
   'density-bin': { value: true },

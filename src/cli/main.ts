@@ -19,7 +19,7 @@ import { withFlags } from './flagHints';
 const USAGE = `usage: cutline check FILE --score COL --treated COL --outcome COL [--outcome COL …] --cutoff NUM
   [--sheet NAME] [--bandwidth NUM | --bandwidth-rule mse|ik|cer] [--kernel triangular|epanechnikov|uniform]
   [--variance nn|hc0|hc1|cluster] [--cluster COL] [--covariate COL …]
-  [--draws N] [--seed N] [--grid N] [--trim NUM] [--multiplier normal|rademacher]
+  [--draws N] [--seed N] [--grid N] [--trim NUM] [--multiplier normal|rademacher] [--trend-guard on|off]
   [--sensitivity 0.5,0.75,1,1.5,2|off] [--within COL] [--density-bin NUM] [--density-bandwidth NUM]
   [--donut NUM] [--json [--bins]]
 `;
@@ -105,6 +105,7 @@ async function check(args: ParsedArgs): Promise<void> {
   );
   const trim = numberOption(args, 'trim', (v) => (v >= 0 ? null : 'must be at least 0'));
   const multiplier = choiceOption(args, 'multiplier', ['normal', 'rademacher'] as const);
+  const trendGuard = choiceOption(args, 'trend-guard', ['on', 'off'] as const);
   const sensitivity = sensitivityOption(one(args, 'sensitivity'));
   const withinName = one(args, 'within');
   const densityBin = numberOption(args, 'density-bin', (v) => (v > 0 ? null : 'must be positive'));
@@ -139,6 +140,7 @@ async function check(args: ParsedArgs): Promise<void> {
     grid,
     trim,
     multiplier,
+    trendGuard: trendGuard === undefined ? undefined : trendGuard === 'on',
     sensitivity,
     densityBin,
     densityBandwidth,

@@ -3,6 +3,8 @@
  * block per question an evaluator asks, with the cautions of docs/methods.md.
  */
 import { CheckResult, EstimateSummary, OutcomeResult } from '../engine/check/check';
+import { ValidityReport } from '../engine/validity/validityReport';
+import { ValidityResult } from '../engine/validity/validityTest';
 import { interval, num, padLeft, padRight, pval, wrap } from './format';
 
 const COLS = [28, 12, 11, 26, 26, 9];
@@ -38,25 +40,87 @@ function armName(arm: 0 | 1): string {
   return arm === 1 ? 'treated compliers' : 'untreated compliers';
 }
 
+/** "p = 0.123", or "p < 0.001". */
+function pIs(p: number): string {
+  const s = pval(p);
+  return s.startsWith('<') ? `p ${s.replace('<', '< ')}` : `p = ${s}`;
+}
+
+function armRestrictions(arm: 0 | 1): string {
+  return arm === 1 ? 'treated-arm restrictions' : 'untreated-arm restrictions';
+}
+
+/** One version's numbers and worst interval; `units` says how to read the interval's ends. */
+function versionLines(title: string, v: ValidityResult, within: string | undefined, units: string): string[] {
+  const w = v.worst;
+  const cell = w.cell !== undefined ? ` in the cell ${within} = ${w.cell_label ?? w.cell}` : '';
+  return [
+    `  ${title}: ${pIs(v.pvalue)}; statistic ${num(v.statistic)}, 5% critical value ${num(v.critical_value)}, ${v.intervals} intervals`,
+    `    worst interval (largest t): ${armName(w.arm)}, outcomes from ${num(w.from)} to ${num(w.to)}${units}${cell} (t = ${num(w.t)})`,
+  ];
+}
+
+function decidedBy(v: ValidityReport): string {
+  if (v.guard === 'off') return 'The trend guard is off (--trend-guard off), so the headline is the published test on the observed outcomes';
+  if (v.guard === 'few outcome values')
+    return (
+      'The outcome takes few distinct values in the window (no more than the grid size), so the trend guard does not apply ' +
+      'and the headline is the published test on the observed outcomes'
+    );
+  const which =
+    v.decided_by === 'both'
+      ? 'Decided by both versions alike (they give the same p-value)'
+      : v.decided_by === 'trend_adjusted'
+        ? 'Decided by the version with the trend removed (its p-value is the larger)'
+        : 'Decided by the version on the observed outcomes (its p-value is the larger)';
+  return `${which}; the headline p-value is the larger of the two, so the design is rejected only when both versions reject`;
+}
+
 function validityBlock(o: OutcomeResult): string[] {
   const v = o.validity;
   const lines: string[] = [];
+  const within = v.within ? ` (within cells of ${v.within})` : '';
+  if (!v.applicable) {
+    lines.push(`${o.name}${within}: no test run`);
+    lines.push(`  ${wrap(`Why: ${v.reason}.`, 96, '  ')}`);
+    return lines;
+  }
   const verdict = v.rejects ? 'the data contradict the design at 5%' : 'the data do not contradict the design at 5%';
-  const holm = v.pvalue_holm !== v.pvalue ? `, Holm-adjusted ${pval(v.pvalue_holm)}` : '';
-  lines.push(`${o.name}${v.within ? ` (within cells of ${v.within})` : ''}: ${verdict} (p = ${pval(v.pvalue)}${holm})`);
-  lines.push(
-    `  statistic ${num(v.statistic)}, 5% critical value ${num(v.critical_value)}, ${v.intervals} intervals, ${v.draws} draws (seed ${v.seed}), ` +
-      `${v.window.below} below / ${v.window.above} above in the window`,
-  );
-  const cell = v.worst.cell !== undefined ? ` in the cell ${v.within} = ${v.worst.cell_label ?? v.worst.cell}` : '';
-  lines.push(
-    `  worst interval (largest t): ${armName(v.worst.arm)}, outcomes from ${num(v.worst.from)} to ${num(v.worst.to)}${cell} (t = ${num(v.worst.t)})`,
-  );
-  if (v.by_bandwidth.length > 1) {
-    const cells = v.by_bandwidth.map((b) =>
-      b.error !== undefined ? `×${b.multiple}: cannot run` : `×${b.multiple} (${num(b.bandwidth, 3)}): p ${pval(b.pvalue!)}${b.rejects ? ' reject' : ''}`,
+  const holm = v.pvalue_holm !== undefined && v.pvalue_holm !== v.pvalue ? `, Holm-adjusted ${pval(v.pvalue_holm)}` : '';
+  lines.push(`${o.name}${within}: ${verdict} (${pIs(v.pvalue)}${holm})`);
+  lines.push(`  ${wrap(decidedBy(v), 96, '  ')}`);
+  const ob = v.observed;
+  lines.push(...versionLines('observed outcomes (the published test)', ob, v.within, ''));
+  if (v.trend_adjusted)
+    lines.push(
+      ...versionLines(
+        "outcomes with each side's quadratic trend in the score removed",
+        v.trend_adjusted,
+        v.within,
+        ' in outcome units at the cutoff',
+      ),
     );
-    lines.push(`  by bandwidth: ${cells.join('; ')}`);
+  for (const a of ob.left_out) {
+    const cell = a.cell !== undefined ? ` in the cell ${v.within} = ${a.cell_label ?? a.cell}` : '';
+    lines.push(`  ${wrap(`left out${cell}: the ${armRestrictions(a.arm)}, because ${a.reason}.`, 96, '    ')}`);
+  }
+  lines.push(`  ${ob.draws} draws (seed ${ob.seed}); ${ob.counts.below} below / ${ob.counts.above} above in the window`);
+  if (v.by_bandwidth.length > 1) {
+    const guarded = v.by_bandwidth.some((b) => b.pvalue_trend_adjusted !== undefined);
+    lines.push(
+      padRight('  by bandwidth', 20) + padLeft('p', 6) + (guarded ? `${padLeft('observed', 11)}${padLeft('trend removed', 15)}` : ''),
+    );
+    for (const b of v.by_bandwidth) {
+      const label = padRight(`    ×${b.multiple} (${num(b.bandwidth, 3)})`, 20);
+      if (b.error !== undefined) lines.push(`${label}  cannot run: ${b.error}`);
+      else if (b.applicable === false) lines.push(`${label}  not applicable: the design is sharp in this window`);
+      else {
+        const extra = guarded
+          ? `${padLeft(pval(b.pvalue_observed!), 11)}${padLeft(b.pvalue_trend_adjusted === undefined ? '–' : pval(b.pvalue_trend_adjusted), 15)}`
+          : '';
+        lines.push(`${label}${padLeft(pval(b.pvalue!), 6)}${extra}${b.rejects ? '   rejects at 5%' : ''}`);
+      }
+    }
   }
   if (o.compliers) {
     lines.push(`  complier means: treated ${num(o.compliers.mean_treated)}, untreated ${num(o.compliers.mean_untreated)}`);
@@ -68,20 +132,22 @@ function densityBlock(r: CheckResult): string[] {
   const d = r.density;
   if (!d) return [];
   const lines = ['', 'Did units sort themselves across the cutoff? Density of the score'];
+  const unreliable = d.method === 'none' ? ' [not reliable here: mass points]' : '';
   if (d.local_polynomial) {
     const l = d.local_polynomial;
     lines.push(
-      `  local polynomial (Cattaneo, Jansson & Ma 2020)${d.method === 'local_polynomial' ? ' [headline]' : ''}: ` +
+      `  local polynomial (Cattaneo, Jansson & Ma 2020)${d.method === 'local_polynomial' ? ' [headline]' : unreliable}: ` +
         `densities ${num(l.density_below)} below, ${num(l.density_above)} above; log ratio ${num(l.log_ratio)} (se ${num(l.se)}), p = ${pval(l.pvalue)}; bandwidth ${num(l.bandwidth)}`,
     );
   }
   if (d.mccrary) {
     const m = d.mccrary;
     lines.push(
-      `  McCrary (2008)${d.method === 'mccrary' ? ' [headline]' : ''}: densities ${num(m.density_below)} below, ${num(m.density_above)} above; ` +
+      `  McCrary (2008)${d.method === 'mccrary' ? ' [headline]' : unreliable}: densities ${num(m.density_below)} below, ${num(m.density_above)} above; ` +
         `log ratio ${num(m.log_ratio)} (se ${num(m.se)}), p = ${pval(m.pvalue)}; bin ${num(m.bin)}, bandwidth ${num(m.bandwidth)}`,
     );
   }
+  if (d.method === 'none') lines.push(`  ${wrap(`No density test is shown as the headline: ${d.unreliable}.`, 96, '  ')}`);
   lines.push(`  ${wrap(d.caution, 96, '  ')}`);
   return lines;
 }

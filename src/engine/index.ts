@@ -22,7 +22,7 @@ import { KernelName, KERNEL_NAMES } from './fit/kernels';
 import { VarianceName, VARIANCE_NAMES } from './fit/residuals';
 import { binnedMeans, BinnedMean } from './plots/binnedMeans';
 import { MultiplierName } from './validity/validityBootstrap';
-import { validityByBandwidth, validityTest, ValidityAtBandwidth, verdictWarnings } from './validity/validityTest';
+import { validityReport, ValidityReport as ValidityReportCore } from './validity/validityReport';
 
 export { CutlineError } from './errors';
 export { runCheck } from './check/check';
@@ -70,6 +70,8 @@ export interface ValidityOptions extends EstimateOptions {
   multiplier?: MultiplierName;
   /** Multiples of the test bandwidth for the by-bandwidth table; [] (default) for the test bandwidth alone. */
   sensitivity?: number[];
+  /** The trend guard (default true); false gives the published test alone. */
+  trendGuard?: boolean;
 }
 
 /** What every result carries. */
@@ -102,20 +104,10 @@ export interface ComplierCurveResult extends Common {
   violations: Array<{ from: number; to: number }>;
 }
 
-export interface ValidityReport extends Common {
-  pvalue: number;
-  statistic: number;
-  critical_value: number;
-  intervals: number;
-  draws: number;
-  seed: number;
-  worst: { arm: 0 | 1; from: number; to: number; t: number };
-  by_bandwidth: ValidityAtBandwidth[];
-  eligible: 'above' | 'below';
-}
+export type ValidityReport = ValidityReportCore & Common & { eligible: 'above' | 'below' };
 
 export interface DensityReport extends Common {
-  method: 'local_polynomial' | 'mccrary';
+  method: 'local_polynomial' | 'mccrary' | 'none';
   log_ratio: number;
   se: number;
   pvalue: number;
@@ -426,30 +418,30 @@ export function complierDensityAt(score: Column, treated: Column, outcome: Colum
   return complierCurve('density', score, treated, outcome, cutoff, at, arm, o);
 }
 
-/** CUTLINE.VALIDITY: the outcome–treatment test at the test bandwidth (as `cutline check`). */
+/** CUTLINE.VALIDITY: the outcome–treatment test at the test bandwidth (as `cutline check`); a sharp design is an error saying why. */
 export function validity(score: Column, treated: Column, outcome: Column, cutoff: number, o: ValidityOptions = {}): ValidityReport {
   const g = fuzzyDesign(score, treated, outcome, cutoff, o);
   const warnings = [...g.warnings];
   const testH = o.bandwidth ?? testBandwidth(g.ts, g.td, cutoff, g.kernel, g.h, warnings);
-  const vopts = { kernel: g.kernel, sign: g.sign, draws: o.draws, seed: o.seed, grid: o.grid, trim: o.trim, multiplier: o.multiplier };
-  const v = validityTest(g.ps, g.pd, g.py, cutoff, { ...vopts, bandwidth: testH });
-  const multiples = (o.sensitivity ?? []).filter((m) => m !== 1);
-  const others = multiples.length ? validityByBandwidth(g.ps, g.pd, g.py, cutoff, testH, multiples, vopts) : [];
-  const at1: ValidityAtBandwidth = { multiple: 1, bandwidth: testH, statistic: v.statistic, pvalue: v.pvalue, critical_value: v.critical_value, rejects: v.pvalue <= 0.05 };
-  const byBandwidth = [...others, at1].sort((a, b) => a.multiple - b.multiple);
-  for (const w of [...v.warnings, ...verdictWarnings(byBandwidth)]) if (!warnings.includes(w)) warnings.push(w);
+  const v = validityReport(g.ps, g.pd, g.py, cutoff, {
+    kernel: g.kernel,
+    sign: g.sign,
+    draws: o.draws,
+    seed: o.seed,
+    grid: o.grid,
+    trim: o.trim,
+    multiplier: o.multiplier,
+    trendGuard: o.trendGuard,
+    bandwidth: testH,
+    multiples: (o.sensitivity ?? []).filter((m) => m !== 1),
+  });
+  if (!v.applicable) fail('not-applicable', 'treated', v.reason);
+  for (const w of v.warnings) if (!warnings.includes(w)) warnings.push(w);
   return {
-    pvalue: v.pvalue,
-    statistic: v.statistic,
-    critical_value: v.critical_value,
-    intervals: v.intervals,
-    draws: v.draws,
-    seed: v.seed,
-    worst: v.worst,
-    by_bandwidth: byBandwidth,
+    ...v,
     eligible: g.sign > 0 ? 'above' : 'below',
     bandwidth: testH,
-    counts: v.counts,
+    counts: v.observed.counts,
     rows: { used: g.p.rows.length, dropped: g.p.dropped },
     warnings,
   };
@@ -465,6 +457,9 @@ export function densityTest(score: Column, cutoff: number, o: EstimateOptions & 
   const sign = o.eligible === 'below' ? -1 : 1;
   const d = densitySection(ps, cutoff, { sign, bin: o.bin, bandwidth: o.densityBandwidth });
   if (!d) fail('too-few', 'score', 'neither density test can be computed on these scores');
+  if (d.method === 'none' || d.pvalue === undefined || d.log_ratio === undefined || d.se === undefined) {
+    fail('too-few', 'score', d.unreliable ?? 'no density test is reliable on these scores');
+  }
   const lp = d.local_polynomial;
   const bandwidth = lp ? lp.bandwidth : d.mccrary!.bandwidth;
   let below = 0;

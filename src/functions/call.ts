@@ -118,6 +118,7 @@ export function engineOptions(bandwidth: number | undefined, s: Settings, missin
     trim: s.trim,
     multiplier: s.multiplier,
     sensitivity: s.sensitivity,
+    trendGuard: s.trendGuard === undefined ? undefined : s.trendGuard === 'on',
     missing,
   };
 }

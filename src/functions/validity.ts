@@ -2,7 +2,9 @@
  * CUTLINE.VALIDITY: the p-value of the outcome–treatment test of a fuzzy
  * design (Arai, Hsu, Kitagawa, Mourifié & Wan 2022, multiplier bootstrap),
  * by the engine's `validity`, at the test bandwidth `cutline check` uses;
- * with one outcome and the same settings, the p-value it prints.
+ * with one outcome and the same settings, the p-value it prints: the larger
+ * of the test on the observed outcomes and on the trend-adjusted ones when
+ * the trend guard applies. A sharp design (nothing to test) is #N/A.
  *
  * The bootstrap takes a noticeable fraction of a second on large data, so
  * the function returns a promise: the work is scheduled after the cells
@@ -20,25 +22,30 @@ import { PreparedCall, prepareCall, ranges } from './prepare';
 function present(c: PreparedCall): Matrix {
   const r = remembered(c.key, () => validityTest(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, c.opts));
   if (!c.detail) return single('VALIDITY', r.pvalue);
-  const arm = r.worst.arm === 1 ? 'treated' : 'untreated';
-  return table([
+  const o = r.observed;
+  const arm = o.worst.arm === 1 ? 'treated' : 'untreated';
+  const rows: Row[] = [
     ['p-value', cellOf(r.pvalue)],
-    ['verdict at 5%', r.pvalue <= 0.05 ? 'the data contradict the design' : 'the data do not contradict the design'],
-    ['statistic', cellOf(r.statistic)],
-    ['5% critical value', cellOf(r.critical_value)],
-    ['intervals', r.intervals],
-    ['draws', r.draws],
-    ['seed', r.seed],
+    ['verdict at 5%', r.rejects ? 'the data contradict the design' : 'the data do not contradict the design'],
+    ['decided by', r.decided_by === 'trend_adjusted' ? 'the trend-adjusted test' : r.decided_by === 'observed' ? 'the test on the observed outcomes' : 'both tests'],
+    ['trend guard', r.guard],
+    ['p-value, observed outcomes', cellOf(o.pvalue)],
+    ['p-value, trend-adjusted outcomes', r.trend_adjusted ? cellOf(r.trend_adjusted.pvalue) : 'not run'],
+    ['statistic (observed)', cellOf(o.statistic)],
+    ['5% critical value (observed)', cellOf(o.critical_value)],
+    ['intervals', o.intervals],
+    ['draws', o.draws],
+    ['seed', o.seed],
     ['worst interval: arm', arm],
-    ['worst interval: from', cellOf(r.worst.from)],
-    ['worst interval: to', cellOf(r.worst.to)],
-    ['worst interval: t', cellOf(r.worst.t)],
-    ...r.by_bandwidth
-      .filter((b) => b.multiple !== 1)
-      .map((b): Row => [`p-value at ${b.multiple} × bandwidth`, b.pvalue === undefined ? (b.error ?? '') : cellOf(b.pvalue)]),
-    ['eligible side', r.eligible],
-    ...commonRows(r),
-  ]);
+    ['worst interval: from', cellOf(o.worst.from)],
+    ['worst interval: to', cellOf(o.worst.to)],
+    ['worst interval: t', cellOf(o.worst.t)],
+  ];
+  for (const b of r.by_bandwidth) {
+    if (b.multiple === 1) continue;
+    rows.push([`p-value at ${b.multiple} × bandwidth`, b.pvalue !== undefined ? cellOf(b.pvalue) : (b.error ?? b.reason ?? 'not computed')]);
+  }
+  return table([...rows, ['eligible side', r.eligible], ...commonRows(r)]);
 }
 
 /**

@@ -32,6 +32,7 @@ export interface Settings {
   densityBin?: number;
   densityBandwidth?: number;
   purpose?: 'estimate' | 'test';
+  trendGuard?: 'on' | 'off';
 }
 
 type Kind = { choices: readonly string[] } | { number: 'positive' | 'whole' | 'nonnegative' | 'level' } | { list: true };
@@ -55,6 +56,7 @@ export const SETTINGS: ReadonlyArray<{ name: string; field: keyof Settings; kind
   { name: 'grid', field: 'grid', kind: { number: 'whole' }, meaning: 'outcome grid size of the validity test (30)' },
   { name: 'trim', field: 'trim', kind: { number: 'nonnegative' }, meaning: 'variance floor of the validity test (0.1)' },
   { name: 'multiplier', field: 'multiplier', kind: { choices: ['normal', 'rademacher'] }, meaning: 'bootstrap multipliers of the validity test (normal)' },
+  { name: 'trend guard', field: 'trendGuard', kind: { choices: ['on', 'off'] }, meaning: 'VALIDITY: also test the trend-adjusted outcomes and report the larger p-value (on); off: the published test alone' },
   { name: 'sensitivity', field: 'sensitivity', kind: { list: true }, meaning: 'multiples of the test bandwidth to rerun the validity test at, e.g. "0.5,1,2" (none)' },
   { name: 'bins below', field: 'binsBelow', kind: { number: 'whole' }, meaning: 'number of bins below the cutoff for BINS (data-driven)' },
   { name: 'bins above', field: 'binsAbove', kind: { number: 'whole' }, meaning: 'number of bins above the cutoff for BINS (data-driven)' },

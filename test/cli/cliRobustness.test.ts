@@ -222,11 +222,14 @@ describe('designs at the edges', () => {
   });
 
   const sharp = (): string => write('sharp.csv', csv('score,treated,y', plain, rows(400, 1.01, -1)));
-  test('sharp design (typed bandwidth): take-up 1, effect = jump, the validity test says it has little power', () => {
+  test('sharp design (typed bandwidth): take-up 1, effect = jump, the validity test is not applicable', () => {
+    // Before issue 7 the test ran here with a power warning; METHODS §4 (arms that test nothing) now gives no p-value.
     const j = expectJson(run([sharp(), ...opts('--bandwidth', '0.5', '--json')]));
     expect(j.takeup.estimate).toBeCloseTo(1, 12);
     expect(j.outcomes[0].effect.estimate).toBeCloseTo(j.outcomes[0].jump.estimate, 12);
-    expect(j.outcomes[0].warnings.join(' ')).toMatch(/nearly sharp design the test has little power/);
+    expect(Object.keys(j.outcomes[0].validity).sort()).toEqual(['applicable', 'reason']);
+    expect(j.outcomes[0].validity.applicable).toBe(false);
+    expect(j.outcomes[0].validity.reason).toMatch(/the design is sharp in this window/);
   });
   // Bug left for the lead (src/engine/check/check.ts + bandwidthMse.ts): the validity test's bandwidth is the
   // mse of take-up, whose pilot b is 0 when take-up is constant on each side; the user sees

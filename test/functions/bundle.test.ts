@@ -108,8 +108,12 @@ describe('same numbers as cutline check on demo/retrofit.csv (one outcome, same 
     const v = one(await p);
     expect(v).toBe(cli.outcomes[0].validity.pvalue);
     const m = (await fn.get('VALIDITY')!(S, D, Y, 60, null, null, true)) as unknown[][];
-    expect(labelled(m, 'statistic')).toBe(cli.outcomes[0].validity.statistic);
-    expect(labelled(m, '5% critical value')).toBe(cli.outcomes[0].validity.critical_value);
+    const v = cli.outcomes[0].validity;
+    expect(labelled(m, 'statistic (observed)')).toBe(v.statistic);
+    expect(labelled(m, '5% critical value (observed)')).toBe(v.critical_value);
+    expect(labelled(m, 'p-value, observed outcomes')).toBe(v.pvalue_observed);
+    expect(labelled(m, 'p-value, trend-adjusted outcomes')).toBe(v.trend_adjusted.pvalue);
+    expect(labelled(m, 'worst interval: from')).toBe(v.worst.from);
     expect(labelled(m, 'bandwidth')).toBe(cli.outcomes[0].validity.bandwidth);
     expect(labelled(m, 'draws')).toBe(999);
   });

@@ -31,7 +31,7 @@ import { complierCdf, complierDensity, complierMeans } from '../compliers/compli
 import { complierGrid } from '../compliers/complierGrid';
 import { holmAdjust } from '../numeric/holm';
 import { MultiplierName } from '../validity/validityBootstrap';
-import { validityByBandwidth, validityTest, ValidityAtBandwidth, verdictWarnings } from '../validity/validityTest';
+import { validityReport, ValidityReportOutcome } from '../validity/validityReport';
 
 export interface DataColumn {
   name: string;
@@ -68,6 +68,8 @@ export interface CheckOptions {
   grid?: number;
   trim?: number;
   multiplier?: MultiplierName;
+  /** The validity test's trend guard (default true); false reports the published test alone. */
+  trendGuard?: boolean;
   /** Multiples of the test bandwidth for the sensitivity table; [] for the test bandwidth alone. */
   sensitivity?: number[];
   /** McCrary's bin width and bandwidth (rules of thumb when absent). */
@@ -81,23 +83,12 @@ export interface CheckOptions {
 
 export const DEFAULT_SENSITIVITY = [0.5, 0.75, 1, 1.5, 2];
 
-export interface ValiditySummary {
-  statistic: number;
-  pvalue: number;
-  /** Holm-adjusted across the outcomes. */
-  pvalue_holm: number;
-  rejects: boolean;
-  critical_value: number;
-  intervals: number;
-  draws: number;
-  seed: number;
-  bandwidth: number;
-  window: { below: number; above: number };
-  /** `cell` is the cell's code (order of first appearance); `cell_label` its value in the data. */
-  worst: { arm: 0 | 1; from: number; to: number; t: number; cell?: number; cell_label?: string };
-  by_bandwidth: ValidityAtBandwidth[];
-  within?: string;
-}
+/**
+ * The validity report of validityReport.ts as the check gives it: `pvalue_holm`
+ * adjusts the headline p-values across the outcomes whose test applies;
+ * `within` names the covariate whose cells the test ran within.
+ */
+export type ValiditySummary = ValidityReportOutcome & { pvalue_holm?: number; within?: string };
 
 export interface ComplierSummary {
   mean_treated: number;
@@ -324,6 +315,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     grid: options.grid,
     trim: options.trim,
     multiplier: options.multiplier,
+    trendGuard: options.trendGuard,
   };
 
   const outcomes = input.outcomes.map((col, j) => {
@@ -342,19 +334,14 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
         `${p.rows.length - vp.rows.length} rows with a missing ${input.within!.name} were left out of the validity test within its cells`,
       );
     }
-    const cellLabels = input.within?.labels;
-    const v = validityTest(vp.score, vp.treated, vp.outcome!, cutoff, { ...vopts, bandwidth: testH, cells: vp.cells, cellLabels });
-    const others = validityByBandwidth(vp.score, vp.treated, vp.outcome!, cutoff, testH, multiples, { ...vopts, cells: vp.cells, cellLabels });
-    const at1: ValidityAtBandwidth = {
-      multiple: 1,
+    const v = validityReport(vp.score, vp.treated, vp.outcome!, cutoff, {
+      ...vopts,
       bandwidth: testH,
-      statistic: v.statistic,
-      pvalue: v.pvalue,
-      critical_value: v.critical_value,
-      rejects: v.pvalue <= 0.05,
-    };
-    const byBandwidth = multiples.length === 0 ? [at1] : [...others, at1].sort((a, b) => a.multiple - b.multiple);
-    for (const w of [...v.warnings, ...verdictWarnings(byBandwidth)]) if (!own.includes(w) && !warnings.includes(w)) own.push(w);
+      multiples,
+      cells: vp.cells,
+      cellLabels: input.within?.labels,
+    });
+    for (const w of v.warnings) if (!own.includes(w) && !warnings.includes(w)) own.push(w);
     let compliers: OutcomeResult['compliers'];
     if (est.takeup.estimate > 0) {
       compliers = complierSummary(p, cutoff, { bandwidth: h, kernel, sign }, options.bins === true);
@@ -374,28 +361,16 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
       takeup: est.takeup,
       jump: est.jump,
       effect: est.effect,
-      validity: {
-        statistic: v.statistic,
-        pvalue: v.pvalue,
-        pvalue_holm: v.pvalue,
-        rejects: v.pvalue <= 0.05,
-        critical_value: v.critical_value,
-        intervals: v.intervals,
-        draws: v.draws,
-        seed: v.seed,
-        bandwidth: testH,
-        window: v.counts,
-        worst: v.worst.cell !== undefined && input.within ? { ...v.worst, cell_label: input.within.labels[v.worst.cell] } : v.worst,
-        by_bandwidth: byBandwidth,
-        within: input.within?.name,
-      },
+      validity: input.within ? { ...v, within: input.within.name } : v,
       compliers,
       warnings: own,
     };
     return result;
   });
-  const holm = holmAdjust(outcomes.map((o) => o.validity.pvalue));
-  outcomes.forEach((o, j) => {
+  // Holm across the outcomes whose test applies (a sharp design has no p-value).
+  const tested = outcomes.filter((o) => o.validity.applicable);
+  const holm = holmAdjust(tested.map((o) => (o.validity.applicable ? o.validity.pvalue : NaN)));
+  tested.forEach((o, j) => {
     o.validity.pvalue_holm = holm[j];
   });
 

@@ -1,7 +1,11 @@
 /**
  * The checks of the design beside the outcome–treatment test (docs/methods.md
  * §6–§8), assembled for a whole check: the score's density (both tests, the
- * local polynomial one the headline when it can be computed), each
+ * local polynomial one the headline when it can be computed and its window is
+ * not mostly mass points; McCrary's binned test only when the local polynomial
+ * one cannot be computed and McCrary's own window is not mostly mass points;
+ * otherwise no headline and a plain statement that no reliable density test is
+ * available, with the reason), each
  * covariate's continuity (local linear jump, Canay–Kamat permutation test,
  * Holm across covariates) and the binned means for the plots.
  *
@@ -18,6 +22,7 @@ import { permutationBalanceTest } from '../covariates/covariatePermutation';
 import { localPolynomialDensityTest, LocalPolynomialDensityResult } from '../density/densityLocalPolynomial';
 import { mccraryTest, McCraryResult } from '../density/densityMcCrary';
 import { CutlineError } from '../errors';
+import { distinctScoreWarning, windowDistinctScores } from '../data/massPoints';
 import { fitLine, FitLineSide } from '../plots/fitLine';
 import { holmAdjust } from '../numeric/holm';
 import { jumpAt } from '../fit/jumpAt';
@@ -28,10 +33,14 @@ export const DENSITY_CAUTION =
   'A jump in the density of the score is evidence of sorting around the cutoff, not proof of an invalid design (sorting unrelated to outcomes leaves the estimand intact); a smooth density is no proof of validity.';
 
 export interface DensitySection {
-  method: 'local_polynomial' | 'mccrary';
-  log_ratio: number;
-  se: number;
-  pvalue: number;
+  /** The headline test; 'none' when no reliable density test is available (see `unreliable`). */
+  method: 'local_polynomial' | 'mccrary' | 'none';
+  /** The headline's numbers (absent when `method` is 'none'). */
+  log_ratio?: number;
+  se?: number;
+  pvalue?: number;
+  /** Why no density test is reliable here (mass points), when `method` is 'none'. */
+  unreliable?: string;
   mccrary?: Pick<McCraryResult, 'log_ratio' | 'se' | 'pvalue' | 'bin' | 'bandwidth' | 'density_above' | 'density_below'>;
   local_polynomial?: Pick<
     LocalPolynomialDensityResult,
@@ -73,13 +82,21 @@ export function densitySection(
   for (const w of [...(m?.warnings ?? []), ...(lp?.warnings ?? [])]) {
     if (!warnings.includes(w) && !(few(w) && warnings.some(few))) warnings.push(w);
   }
-  const head = lp ?? m;
-  if (!head) return undefined;
+  if (!lp && !m) return undefined;
+  // Each test judged on its own window (massPoints.ts): a heaped or discrete score there makes it unreliable.
+  const massy = (h: number): string | null => distinctScoreWarning(windowDistinctScores(score, cutoff, h), 'the density tests');
+  const lpMass = lp ? massy(lp.bandwidth) : null;
+  const mMass = m ? massy(m.bandwidth) : null;
+  const head = lp && !lpMass ? lp : !lp && m && !mMass ? m : undefined;
+  const method: DensitySection['method'] = head === undefined ? 'none' : head === lp ? 'local_polynomial' : 'mccrary';
+  const unreliable =
+    head === undefined
+      ? `no reliable density test is available: ${lpMass ?? mMass}` +
+        (lp ? '' : '; the local polynomial test could not be computed, and McCrary\'s binned test is not used in its place with mass points')
+      : undefined;
   return {
-    method: lp ? 'local_polynomial' : 'mccrary',
-    log_ratio: head.log_ratio,
-    se: head.se,
-    pvalue: head.pvalue,
+    method,
+    ...(head ? { log_ratio: head.log_ratio, se: head.se, pvalue: head.pvalue } : { unreliable }),
     mccrary: m && {
       log_ratio: m.log_ratio,
       se: m.se,

@@ -20,7 +20,15 @@
  *   then as in §4, enter one maximum and one joint bootstrap (cells hold
  *   disjoint units, so their draws are independent); the take-up jump reported
  *   is that of the pooled window;
- * - the take-up jump counts as significantly positive when its hc0 z ≥ 1.645.
+ * - the take-up jump counts as significantly positive when its hc0 z ≥ 1.645;
+ * - arms that test nothing (docs/methods.md §4.7, Cutline's rule): when no unit of the
+ *   window on the non-eligible side is treated, the arm-1 moments are left out
+ *   of T and of every draw; when no unit of the window on the eligible side is
+ *   untreated, the arm-0 moments are; both (a sharp design) → the result is
+ *   `{ applicable: false, reason }`, never a p-value. Within covariate cells
+ *   the rule applies cell by cell (each cell has its own window); the test is
+ *   not applicable only when every cell tests nothing. `intervals` counts the
+ *   moments kept.
  *
  * @example
  *   const r = validityTest(score, treated, bill, 60, { bandwidth: 8, kernel: 'triangular' });
@@ -32,7 +40,7 @@ import { intervalClass } from './intervalClass';
 import { KernelName } from '../fit/kernels';
 import { gathered } from '../fit/residuals';
 import { MultiplierName, bootstrapMaxima, selection } from './validityBootstrap';
-import { MomentSet, takeupOf, validityMoments } from './validityMoments';
+import { MomentSet, selectMoments, takeupOf, validityMoments } from './validityMoments';
 
 export interface ValidityOptions {
   bandwidth: number;
@@ -56,7 +64,17 @@ export interface ValidityOptions {
   rows?: Int32Array;
 }
 
+/** An arm left out of the test because its restrictions cannot fail. */
+export interface ArmLeftOut {
+  arm: 0 | 1;
+  /** Covariate cell id and name (test within cells). */
+  cell?: number;
+  cell_label?: string;
+  reason: string;
+}
+
 export interface ValidityResult {
+  applicable: true;
   statistic: number;
   pvalue: number;
   critical_value: number;
@@ -64,12 +82,27 @@ export interface ValidityResult {
   draws: number;
   seed: number;
   bandwidth: number;
-  worst: { arm: 0 | 1; from: number; to: number; t: number; cell?: number };
+  /** `cell` is the covariate cell's id, `cell_label` its name when `cellLabels` is given. */
+  worst: { arm: 0 | 1; from: number; to: number; t: number; cell?: number; cell_label?: string };
   counts: { below: number; above: number };
+  /** The take-up jump in the test's window (pooled over cells). */
   takeup: number;
   kappa: number;
+  /** Arms left out (empty when both arms are tested). */
+  left_out: ArmLeftOut[];
   warnings: string[];
 }
+
+/** The test cannot say anything here (a sharp design in this window). */
+export interface ValidityNotApplicable {
+  applicable: false;
+  reason: string;
+  bandwidth: number;
+  counts: { below: number; above: number };
+  warnings: string[];
+}
+
+export type ValidityOutcome = ValidityResult | ValidityNotApplicable;
 
 export interface ResolvedOptions {
   draws: number;
@@ -134,6 +167,16 @@ export function checkColumns(
 
 const fmt = (v: number): string => Number(v.toPrecision(4)).toString();
 
+/** One window's moments, with the arms that test nothing left out. */
+export interface WindowMoments {
+  /** The moments kept (null: neither arm tests anything in this window). */
+  set: MomentSet | null;
+  /** Take-up jump and its hc0 se in this window (from every moment, before leaving arms out). */
+  takeup: { estimate: number; se: number };
+  left: Array<{ arm: 0 | 1; reason: string }>;
+  counts: { plus: number; minus: number };
+}
+
 /** Moments of one window; `label` prefixes errors (covariate cell). */
 function momentsFor(
   score: ArrayLike<number>,
@@ -144,7 +187,7 @@ function momentsFor(
   r: ResolvedOptions,
   rows: Int32Array | undefined,
   label: string,
-): MomentSet {
+): WindowMoments {
   let win;
   try {
     win = boundaryWindow(score, cutoff, o.bandwidth, o.kernel, { quadratic: false, rows });
@@ -153,9 +196,13 @@ function momentsFor(
     throw e;
   }
   const plusSide = r.sign === 1 ? win.above : win.below;
+  const minusSide = r.sign === 1 ? win.below : win.above;
   const where = r.sign === 1 ? 'above' : 'below';
+  const other = r.sign === 1 ? 'below' : 'above';
   let treatedPlus = 0;
   for (let t = 0; t < plusSide.index.length; t++) treatedPlus += treated[plusSide.index[t]];
+  let treatedMinus = 0;
+  for (let t = 0; t < minusSide.index.length; t++) treatedMinus += treated[minusSide.index[t]];
   const pre = label ? `${label}: ` : '';
   if (treatedPlus === 0)
     throw new CutlineError(
@@ -174,7 +221,30 @@ function momentsFor(
       `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${fmt(o.bandwidth)}); ` +
         `the validity test needs an outcome that varies there — widen the bandwidth`,
     );
-  return validityMoments(win, cls, treated, outcome, r.trim, r.sign);
+  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign);
+  const left: WindowMoments['left'] = [];
+  if (treatedMinus === 0)
+    left.push({
+      arm: 1,
+      reason:
+        `no unit ${other} the cutoff in the window is treated, so these restrictions only say that a share is not negative ` +
+        `and cannot fail`,
+    });
+  if (treatedPlus === plusSide.index.length)
+    left.push({
+      arm: 0,
+      reason:
+        `every unit ${where} the cutoff in the window is treated, so these restrictions only say that a share is not negative ` +
+        `and cannot fail`,
+    });
+  const keep: number[] = [];
+  for (let l = 0; l < all.count; l++) if (!left.some((a) => a.arm === all.arm[l])) keep.push(l);
+  return {
+    set: keep.length === 0 ? null : keep.length === all.count ? all : selectMoments(all, keep),
+    takeup: takeupOf(all),
+    left,
+    counts: { plus: plusSide.index.length, minus: minusSide.index.length },
+  };
 }
 
 /** A cell's name for messages: its label when given, else its id. */
@@ -183,7 +253,7 @@ function cellName(o: ValidityOptions, id: number): string {
   return label === undefined ? String(id) : JSON.stringify(label);
 }
 
-/** The moment sets (one per covariate cell, ascending ids) and their labels. */
+/** The windows' moments (one per covariate cell, ascending ids) and the cell ids. */
 export function validityMomentSets(
   score: ArrayLike<number>,
   treated: ArrayLike<number>,
@@ -191,8 +261,8 @@ export function validityMomentSets(
   cutoff: number,
   o: ValidityOptions,
   r: ResolvedOptions,
-): { sets: MomentSet[]; cellIds: number[] | null } {
-  if (!o.cells) return { sets: [momentsFor(score, treated, outcome, cutoff, o, r, o.rows, '')], cellIds: null };
+): { windows: WindowMoments[]; cellIds: number[] | null } {
+  if (!o.cells) return { windows: [momentsFor(score, treated, outcome, cutoff, o, r, o.rows, '')], cellIds: null };
   const cells = o.cells;
   if (cells.length !== score.length) throw new CutlineError(`cells must have one id per data row (${score.length}), got ${cells.length}`);
   const byCell = new Map<number, number[]>();
@@ -204,22 +274,48 @@ export function validityMomentSets(
     else byCell.set(cells[i], [i]);
   }
   const ids = [...byCell.keys()].sort((a, b) => a - b);
-  const sets = ids.map((id) => momentsFor(score, treated, outcome, cutoff, o, r, Int32Array.from(byCell.get(id)!), `within cell ${cellName(o, id)}`));
-  return { sets, cellIds: ids };
+  const windows = ids.map((id) =>
+    momentsFor(score, treated, outcome, cutoff, o, r, Int32Array.from(byCell.get(id)!), `within cell ${cellName(o, id)}`),
+  );
+  return { windows, cellIds: ids };
 }
 
-/** The validity test at one bandwidth. */
+/** The reason a sharp design gets no p-value (docs/methods.md §4.7). */
+export function sharpReason(sign: 1 | -1, cells: boolean): string {
+  const where = sign === 1 ? 'above' : 'below';
+  const other = sign === 1 ? 'below' : 'above';
+  return (
+    `the design is sharp in this window${cells ? ' (in every cell)' : ''}: no unit ${other} the cutoff is treated and every unit ${where} it is, ` +
+    `so the outcome–treatment restrictions hold trivially and say nothing about the design; the test is not run`
+  );
+}
+
+/**
+ * The validity test at one bandwidth, on the outcome given (the observed
+ * outcome, or the trend guard's Ỹ: see validityReport.ts).
+ */
 export function validityTest(
   score: ArrayLike<number>,
   treated: ArrayLike<number>,
   outcome: ArrayLike<number>,
   cutoff: number,
   options: ValidityOptions,
-): ValidityResult {
+): ValidityOutcome {
   const r = resolveValidityOptions(options);
   if (!Number.isFinite(cutoff)) throw new CutlineError(`cutoff must be a finite number, got ${cutoff}`);
   const n = checkColumns(score, treated, outcome, options.rows);
-  const { sets, cellIds } = validityMomentSets(score, treated, outcome, cutoff, options, r);
+  const { windows, cellIds } = validityMomentSets(score, treated, outcome, cutoff, options, r);
+  const plusName = r.sign === 1 ? 'above' : 'below';
+  const minusName = r.sign === 1 ? 'below' : 'above';
+  const counts = { below: 0, above: 0 };
+  for (const w of windows) {
+    counts[plusName] += w.counts.plus;
+    counts[minusName] += w.counts.minus;
+  }
+  const tested = windows.map((w, g) => ({ w, g })).filter((e) => e.w.set !== null);
+  if (tested.length === 0)
+    return { applicable: false, reason: sharpReason(r.sign, cellIds !== null), bandwidth: options.bandwidth, counts, warnings: [] };
+  const sets = tested.map((e) => e.w.set!);
   const kappa = Math.sqrt(0.3 * Math.log(n));
   const bn = Math.sqrt((0.4 * Math.log(n)) / Math.log(Math.log(n)));
 
@@ -251,21 +347,26 @@ export function validityTest(
     to: wm.cls.binMax[wm.last[worstL]],
     t: T,
   };
-  if (cellIds) worst.cell = cellIds[worstSet];
+  if (cellIds) {
+    worst.cell = cellIds[tested[worstSet].g];
+    const label = options.cellLabels?.[worst.cell];
+    if (label !== undefined) worst.cell_label = label;
+  }
 
-  const counts = { below: 0, above: 0 };
   const warnings: string[] = [];
-  const plusName = r.sign === 1 ? 'above' : 'below';
-  const minusName = r.sign === 1 ? 'below' : 'above';
-  sets.forEach((m, g) => {
-    const np = m.plus.w.length;
-    const nm = m.minus.w.length;
-    counts[plusName] += np;
-    counts[minusName] += nm;
+  const left_out: ArmLeftOut[] = [];
+  windows.forEach((w, g) => {
     const where = cellIds ? ` in cell ${cellName(options, cellIds[g])}` : '';
-    for (const [cnt, name] of [[nm, minusName], [np, plusName]] as const)
+    for (const [cnt, name] of [[w.counts.minus, minusName], [w.counts.plus, plusName]] as const)
       if (cnt < 50)
         warnings.push(`only ${cnt} units ${name} the cutoff${where} inside the window (fewer than 50): the bootstrap p-value may be inaccurate`);
+    for (const a of w.left) {
+      if (!cellIds) left_out.push(a);
+      else {
+        const label = options.cellLabels?.[cellIds[g]];
+        left_out.push({ ...a, cell: cellIds[g], ...(label !== undefined ? { cell_label: label } : {}) });
+      }
+    }
   });
 
   // A floor above every interval's standard error replaces them all: every t is then near 0, every
@@ -276,22 +377,21 @@ export function validityTest(
       `the trim ${fmt(r.trim)} is so large that it replaces the standard error of every interval: the test no longer weighs intervals by their precision and loses power (at larger trims it can hardly reject, whatever the data); use a trim near the default 0.1`,
     );
   }
-  const tk = cellIds
-    ? takeupOf(momentsFor(score, treated, outcome, cutoff, options, r, options.rows, ''))
-    : takeupOf(sets[0]);
+  const tk = cellIds ? momentsFor(score, treated, outcome, cutoff, options, r, options.rows, '').takeup : windows[0].takeup;
   if (tk.estimate > 0.8)
     warnings.push(
-      `the take-up jump is ${fmt(tk.estimate)}, above 0.8: in a nearly sharp design the test has little power to detect ` +
-        `continuity failures, because the restrictions bind only through the few non-compliers`,
+      `the take-up jump in the test's window (bandwidth ${fmt(options.bandwidth)}) is ${fmt(tk.estimate)}, above 0.8: in a nearly ` +
+        `sharp design the test has little power to detect continuity failures, because the restrictions bind only through the few non-compliers`,
     );
   const z = tk.se > 0 ? tk.estimate / tk.se : tk.estimate > 0 ? Infinity : -Infinity;
   if (!(z >= 1.645))
     warnings.push(
-      `the take-up jump (${fmt(tk.estimate)}, z = ${fmt(z)}) is not significantly positive at 5%: ` +
+      `the take-up jump in the test's window (${fmt(tk.estimate)}, z = ${fmt(z)}) is not significantly positive at 5%: ` +
         `the restrictions then say little, and a non-rejection is weak evidence`,
     );
 
   return {
+    applicable: true,
     statistic: T,
     pvalue: exceed / r.draws,
     critical_value: critical,
@@ -303,64 +403,7 @@ export function validityTest(
     counts,
     takeup: tk.estimate,
     kappa,
+    left_out,
     warnings,
   };
-}
-
-export interface ValidityAtBandwidth {
-  multiple: number;
-  bandwidth: number;
-  statistic?: number;
-  pvalue?: number;
-  critical_value?: number;
-  rejects?: boolean;
-  /** Why the test could not run at this bandwidth. */
-  error?: string;
-}
-
-/**
- * The test at base·multiple for each multiple, same seed (common multipliers).
- * A bandwidth that cannot be fitted gives an entry with `error`, not a throw;
- * option errors still throw.
- */
-export function validityByBandwidth(
-  score: ArrayLike<number>,
-  treated: ArrayLike<number>,
-  outcome: ArrayLike<number>,
-  cutoff: number,
-  baseBandwidth: number,
-  multiples: number[],
-  options: Omit<ValidityOptions, 'bandwidth'> & { bandwidth?: number },
-): ValidityAtBandwidth[] {
-  if (!(baseBandwidth > 0) || !Number.isFinite(baseBandwidth))
-    throw new CutlineError(`the base bandwidth must be a positive number, got ${baseBandwidth}`);
-  for (const k of multiples)
-    if (!(k > 0) || !Number.isFinite(k)) throw new CutlineError(`bandwidth multiples must be positive numbers, got ${k}`);
-  resolveValidityOptions({ ...options, bandwidth: baseBandwidth });
-  return multiples.map((multiple) => {
-    const bandwidth = baseBandwidth * multiple;
-    try {
-      const v = validityTest(score, treated, outcome, cutoff, { ...options, bandwidth });
-      return { multiple, bandwidth, statistic: v.statistic, pvalue: v.pvalue, critical_value: v.critical_value, rejects: v.pvalue <= 0.05 };
-    } catch (e) {
-      if (e instanceof CutlineError) return { multiple, bandwidth, error: e.message };
-      throw e;
-    }
-  });
-}
-
-/** Plain-words warnings about the by-bandwidth verdicts. */
-export function verdictWarnings(byBandwidth: ValidityAtBandwidth[]): string[] {
-  const ok = byBandwidth.filter((b) => b.error === undefined);
-  const out: string[] = [];
-  const rej = ok.filter((b) => b.rejects).map((b) => fmt(b.bandwidth));
-  const acc = ok.filter((b) => !b.rejects).map((b) => fmt(b.bandwidth));
-  if (rej.length > 0 && acc.length > 0)
-    out.push(
-      `the validity verdict at 5% changes with the bandwidth: rejected at ${rej.join(', ')}, not rejected at ${acc.join(', ')}; ` +
-        `a verdict that turns with the bandwidth is a finding in itself`,
-    );
-  const bad = byBandwidth.filter((b) => b.error !== undefined);
-  if (bad.length > 0) out.push(`the validity test could not run at bandwidth ${bad.map((b) => fmt(b.bandwidth)).join(', ')}: ${bad[0].error}`);
-  return out;
 }

@@ -11,7 +11,7 @@ import { normalUpperTail } from '../../../src/engine/numeric/normal';
 import { Random } from '../../../src/engine/numeric/random';
 import { bootstrapMaxima, drawPlan, gaussianDraw, multiplierDraw } from '../../../src/engine/validity/validityBootstrap';
 import { selectMoments, validityMoments } from '../../../src/engine/validity/validityMoments';
-import { validityTest } from '../../../src/engine/validity/validityTest';
+import { ranTest } from '../../helpers/validityRan';
 import { denseValidity, simulate } from '../../helpers/validityDense';
 
 function setup(kind: 'continuous' | 'binary' | 'ties', grid: number, sign: 1 | -1 = 1) {
@@ -103,16 +103,16 @@ describe('reproducibility', () => {
   const d = simulate(600, 5, 'continuous');
   const opts = { bandwidth: 0.6, kernel: 'triangular' as const };
   test('same seed gives the same p-value; another seed differs in draws', () => {
-    const a = validityTest(d.score, d.treated, d.outcome, 0, opts);
-    const b = validityTest(d.score, d.treated, d.outcome, 0, opts);
+    const a = ranTest(d.score, d.treated, d.outcome, 0, opts);
+    const b = ranTest(d.score, d.treated, d.outcome, 0, opts);
     expect(b.pvalue).toBe(a.pvalue);
     expect(b.critical_value).toBe(a.critical_value);
-    const c = validityTest(d.score, d.treated, d.outcome, 0, { ...opts, seed: 2 });
+    const c = ranTest(d.score, d.treated, d.outcome, 0, { ...opts, seed: 2 });
     expect(c.critical_value).not.toBe(a.critical_value);
   });
   test('snapshot of the exact p-values (guards cross-machine reproducibility)', () => {
-    const a = validityTest(d.score, d.treated, d.outcome, 0, opts);
-    const r = validityTest(d.score, d.treated, d.outcome, 0, { ...opts, multiplier: 'rademacher', draws: 199, seed: 3 });
+    const a = ranTest(d.score, d.treated, d.outcome, 0, opts);
+    const r = ranTest(d.score, d.treated, d.outcome, 0, { ...opts, multiplier: 'rademacher', draws: 199, seed: 3 });
           // Values produced by this engine at commit time (seeded xoshiro128** + Box–Muller), not an outside source.
     expect([a.statistic.toFixed(10), a.pvalue, a.critical_value.toFixed(10)]).toEqual(['2.1647575974', 547 / 999, '3.1376649290']);
     // Rademacher signs go to units in the canonical order of validityBootstrap.ts (tied scores by cell).
@@ -124,8 +124,8 @@ describe('reproducibility', () => {
     const perm = Array.from({ length: n }, (_, i) => (i * 7 + 3) % n); // 7 is coprime with 600
     const pick = (a: number[]): number[] => perm.map((p) => a[p]);
     const ro = { ...opts, multiplier: 'rademacher' as const, draws: 199, seed: 3 };
-    const a = validityTest(d.score, d.treated, d.outcome, 0, ro);
-    const b = validityTest(pick(d.score), pick(d.treated), pick(d.outcome), 0, ro);
+    const a = ranTest(d.score, d.treated, d.outcome, 0, ro);
+    const b = ranTest(pick(d.score), pick(d.treated), pick(d.outcome), 0, ro);
     expect(b.pvalue).toBe(a.pvalue);
     expect(b.critical_value).toBeCloseTo(a.critical_value, 12);
   });

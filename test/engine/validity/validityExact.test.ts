@@ -7,7 +7,7 @@
 import { boundaryWindow } from '../../../src/engine/fit/boundaryWindow';
 import { intervalClass } from '../../../src/engine/validity/intervalClass';
 import { validityMoments } from '../../../src/engine/validity/validityMoments';
-import { validityTest } from '../../../src/engine/validity/validityTest';
+import { ranTest } from '../../helpers/validityRan';
 import { denseValidity, simulate } from '../../helpers/validityDense';
 
 const close = (a: number, b: number, tol = 1e-9): boolean => Math.abs(a - b) <= tol * Math.max(1, Math.abs(b));
@@ -46,7 +46,7 @@ describe.each([
   });
 
   test('the statistic agrees', () => {
-    const r = validityTest(d.score, d.treated, d.outcome, 0, { bandwidth: h, kernel, grid, sign, draws: 19 });
+    const r = ranTest(d.score, d.treated, d.outcome, 0, { bandwidth: h, kernel, grid, sign, draws: 19 });
     expect(close(r.statistic, dense.T)).toBe(true);
     expect(r.intervals).toBe(dense.moments.length);
     expect(r.counts.above + r.counts.below).toBe(dense.rows.length);
@@ -56,7 +56,7 @@ describe.each([
 test('worst interval is reported by its smallest and largest window outcomes, earliest on ties', () => {
   // Binary outcome, one value per bin: the worst interval's ends are 0 or 1.
   const d = simulate(800, 3, 'binary');
-  const r = validityTest(d.score, d.treated, d.outcome, 0, { bandwidth: 0.5, kernel: 'triangular', draws: 9 });
+  const r = ranTest(d.score, d.treated, d.outcome, 0, { bandwidth: 0.5, kernel: 'triangular', draws: 9 });
   const dense = denseValidity(d.score, d.treated, d.outcome, 0, 0.5, 'triangular', 30, 0.1);
   const l = dense.moments.findIndex((m) => m.t === Math.max(...dense.moments.map((x) => x.t)));
   const dm = dense.moments[l];

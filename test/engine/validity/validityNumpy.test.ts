@@ -9,7 +9,7 @@ import { boundaryWindow } from '../../../src/engine/fit/boundaryWindow';
 import { complierCdf, complierDensity, complierMeans } from '../../../src/engine/compliers/complierDistributions';
 import { intervalClass } from '../../../src/engine/validity/intervalClass';
 import { validityMoments } from '../../../src/engine/validity/validityMoments';
-import { validityTest } from '../../../src/engine/validity/validityTest';
+import { ranTest } from '../../helpers/validityRan';
 
 const close = (a: number, b: number, tol = 1e-9): boolean => Math.abs(a - b) <= tol * Math.max(1, Math.abs(b));
 
@@ -27,7 +27,7 @@ describe.each(fixture.cases.map((c) => [c.name, c] as const))('%s outcome (NumPy
       if (!close(m.estimate[l], f.estimate) || !close(m.se[l], f.se) || !close(m.t[l], f.t)) bad++;
     });
     expect(bad).toBe(0);
-    const r = validityTest(c.score, c.treated, c.outcome, 0, { ...o, grid: c.grid, draws: 9 });
+    const r = ranTest(c.score, c.treated, c.outcome, 0, { ...o, grid: c.grid, draws: 9 });
     expect(close(r.statistic, c.T)).toBe(true);
     expect(close(r.takeup, c.takeup)).toBe(true);
   });

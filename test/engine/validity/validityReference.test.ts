@@ -14,7 +14,7 @@
 import { readFileSync } from 'fs';
 import { join } from 'path';
 import { Random } from '../../../src/engine/numeric/random';
-import { validityTest } from '../../../src/engine/validity/validityTest';
+import { ranTest } from '../../helpers/validityRan';
 import { MultiplierName } from '../../../src/engine/validity/validityBootstrap';
 
 interface Case {
@@ -58,7 +58,7 @@ test('the engine random stream equals the reference re-implementation (xoshiro12
 });
 
 describe.each(fx.cases.map((c) => [c.name, c] as const))('validity test vs dense NumPy reference: %s', (_n, c) => {
-  const got = validityTest(c.score, c.treated, c.outcome, 0, {
+  const got = ranTest(c.score, c.treated, c.outcome, 0, {
     bandwidth: c.bandwidth,
     kernel: 'triangular',
     grid: c.grid,
