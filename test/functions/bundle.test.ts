@@ -108,12 +108,12 @@ describe('same numbers as cutline check on demo/retrofit.csv (one outcome, same 
     const v = one(await p);
     expect(v).toBe(cli.outcomes[0].validity.pvalue);
     const m = (await fn.get('VALIDITY')!(S, D, Y, 60, null, null, true)) as unknown[][];
-    const v = cli.outcomes[0].validity;
-    expect(labelled(m, 'statistic (observed)')).toBe(v.statistic);
-    expect(labelled(m, '5% critical value (observed)')).toBe(v.critical_value);
-    expect(labelled(m, 'p-value, observed outcomes')).toBe(v.pvalue_observed);
-    expect(labelled(m, 'p-value, trend-adjusted outcomes')).toBe(v.trend_adjusted.pvalue);
-    expect(labelled(m, 'worst interval: from')).toBe(v.worst.from);
+    const cv = cli.outcomes[0].validity;
+    expect(labelled(m, 'statistic (observed)')).toBe(cv.statistic);
+    expect(labelled(m, '5% critical value (observed)')).toBe(cv.critical_value);
+    expect(labelled(m, 'p-value, observed outcomes')).toBe(cv.pvalue_observed);
+    expect(labelled(m, 'p-value, trend-adjusted outcomes')).toBe(cv.trend_adjusted.pvalue);
+    expect(labelled(m, 'worst interval: from')).toBe(cv.worst.from);
     expect(labelled(m, 'bandwidth')).toBe(cli.outcomes[0].validity.bandwidth);
     expect(labelled(m, 'draws')).toBe(999);
   });
@@ -272,6 +272,13 @@ describe('VALIDITY never blocks and honours cancellation', () => {
     const e = await errorOf(() => p);
     expect(e.code).toBe('#N/A');
     expect(e.message).toBe('CUTLINE.VALIDITY: canceled by Excel before it ran');
+  });
+  test('a sharp design (treated exactly by the cutoff) has nothing to test: #N/A saying why', async () => {
+    const sharp = S.map(([v], k) => [k === 0 ? 'treated' : typeof v === 'number' ? (v >= 60 ? 1 : 0) : '']);
+    const e = await errorOf(() => fn.get('VALIDITY')!(S, sharp, Y, 60));
+    expect(e.code).toBe('#N/A');
+    expect(e.message).toMatch(/^CUTLINE\.VALIDITY: treated: /);
+    expect(e.message.length).toBeGreaterThan(40);
   });
   test('bad input rejects the promise with the Excel error', async () => {
     const e = await errorOf(() => fn.get('VALIDITY')!(S, D.slice(0, 10), Y, 60));
