@@ -278,7 +278,7 @@ describe('VALIDITY never blocks and honours cancellation', () => {
     const e = await errorOf(() => fn.get('VALIDITY')!(S, sharp, Y, 60));
     expect(e.code).toBe('#N/A');
     expect(e.message).toMatch(/^CUTLINE\.VALIDITY: treated: /);
-    expect(e.message.length).toBeGreaterThan(40);
+    expect((e.message ?? "").length).toBeGreaterThan(40);
   });
   test('bad input rejects the promise with the Excel error', async () => {
     const e = await errorOf(() => fn.get('VALIDITY')!(S, D.slice(0, 10), Y, 60));
