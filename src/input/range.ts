@@ -90,14 +90,6 @@ function view(a: RangeArgument): CellView {
   throw new RangeInputError(`${a.argument} must be a single column (or row) of cells; it has ${rows.length} rows and ${width} columns`, a.argument, 'shape');
 }
 
-/** The cells of a one-column or one-row range, as a list. */
-function flatten(a: RangeArgument): unknown[] {
-  const v = view(a);
-  const out = new Array<unknown>(v.length);
-  for (let i = 0; i < v.length; i++) out[i] = v.at(i);
-  return out;
-}
-
 /** A header: text at the top that is not a value by the cell rules. */
 function isHeader(cell: unknown): boolean {
   return typeof cell === 'string' && !isBlank(cell) && cellNumber(cell as Cell) === undefined;
@@ -154,15 +146,15 @@ export function rangeColumns(args: RangeArgument[]): RangeColumn[] {
       );
     }
   }
-  return flat.map(({ a, header }) => readColumn(a, flatten(a), header, n));
+  return flat.map(({ a, cells, header }) => readColumn(a, cells, header, n));
 }
 
-function readColumn(a: RangeArgument, cells: unknown[], header: number, n: number): RangeColumn {
+function readColumn(a: RangeArgument, cells: CellView, header: number, n: number): RangeColumn {
   const values = new Float64Array(n);
   const missing = new Uint8Array(n);
   let missingCount = 0;
   for (let i = 0; i < n; i++) {
-    const cell = cells[header + i];
+    const cell = cells.at(header + i);
     // Plain numbers are by far the commonest cells: decide them first.
     if (typeof cell === 'number' && cell === cell && cell !== Infinity && cell !== -Infinity) {
       if (a.binary && cell !== 0 && cell !== 1) throw bad(a, header + i, cell);
@@ -190,7 +182,7 @@ function readColumn(a: RangeArgument, cells: unknown[], header: number, n: numbe
       throw bad(a, header + i, cell);
     } else values[i] = v;
   }
-  const name = header ? String(cells[0]).trim() : undefined;
+  const name = header ? String(cells.at(0)).trim() : undefined;
   return { argument: a.argument, name, values, missing, missingCount };
 }
 
@@ -202,16 +194,17 @@ function bad(a: RangeArgument, k: number, cell: unknown): RangeInputError {
 
 /** A list of numbers from a range (the `at` values of a complier curve), blanks skipped. */
 export function rangeNumbers(a: RangeArgument): number[] {
-  const cells = flatten(a);
+  const cells = view(a);
   const out: number[] = [];
-  cells.forEach((cell, k) => {
-    if (isBlank(cell) || (k === 0 && isHeader(cell))) return;
+  for (let k = 0; k < cells.length; k++) {
+    const cell = cells.at(k);
+    if (isBlank(cell) || (k === 0 && isHeader(cell))) continue;
     const code = errorCode(cell);
     if (code !== undefined) throw new RangeInputError(`${a.argument}: ${cellPlace(a, k)} holds the error ${code}`, a.argument);
     const v = typeof cell === 'number' ? cell : cellNumber(cell as Cell);
     if (typeof v !== 'number' || !Number.isFinite(v)) throw bad(a, k, cell);
     out.push(v);
-  });
+  }
   if (out.length === 0) throw new RangeInputError(`${a.argument} holds no numbers`, a.argument, 'shape');
   return out;
 }
