@@ -36,6 +36,7 @@ export { VARIANCE_NAMES } from './fit/residuals';
 export type { VarianceName } from './fit/residuals';
 export type { MultiplierName } from './validity/validityBootstrap';
 export { MAX_DRAWS, MAX_GRID } from './validity/validityTest';
+export { Random } from './numeric/random';
 export type { BinnedMean } from './plots/binnedMeans';
 
 type Column = ArrayLike<number>;
