@@ -106,3 +106,12 @@ test('icons: PNGs of the sizes the manifest declares', () => {
   expect(size(path.join(root, 'assets', path.basename(xml.IconUrl[0].$.DefaultValue)))).toEqual([32, 32]);
   expect(size(path.join(root, 'assets', path.basename(xml.HighResolutionIconUrl[0].$.DefaultValue)))).toEqual([64, 64]);
 });
+
+test('the shared runtime page loads office.js from the add-in’s origin, then the functions and the pane', () => {
+  const html = fs.readFileSync(path.join(root, 'dist', 'taskpane.html'), 'utf8');
+  const scripts = [...html.matchAll(/<script[^>]*src="([^"]+)"/g)].map((m) => m[1]);
+  expect(scripts).toEqual(['office/office.js', 'functions.js', 'taskpane.js']);
+  for (const s of scripts) expect(fs.existsSync(path.join(root, 'dist', s))).toBe(true);
+  // office.js finds its host scripts beside itself: Excel's are there.
+  expect(fs.readdirSync(path.join(root, 'dist', 'office')).some((f) => /^excel-win32-.*\.js$/.test(f))).toBe(true);
+});
