@@ -9,9 +9,8 @@
  */
 import { BandwidthRule, chooseBandwidth } from './bandwidth/bandwidth';
 import { donutMask, testBandwidth } from './check/check';
-import { densitySection } from './check/designChecks';
+import { balanceSection, BalanceRow, binnedSeries, BinnedSeries, densitySection, DensitySection } from './check/designChecks';
 import { complierCdf, complierDensity } from './compliers/complierDistributions';
-import { permutationBalanceTest } from './covariates/covariatePermutation';
 import { compact, completeRows } from './data/listwise';
 import { CutlineError } from './errors';
 import { applyWeights, boundaryWindow } from './fit/boundaryWindow';
@@ -20,7 +19,6 @@ import { estimatesAtCutoff } from './fit/estimatesAtCutoff';
 import { jumpAt } from './fit/jumpAt';
 import { KernelName, KERNEL_NAMES } from './fit/kernels';
 import { VarianceName, VARIANCE_NAMES } from './fit/residuals';
-import { binnedMeans, BinnedMean } from './plots/binnedMeans';
 import { MultiplierName } from './validity/validityBootstrap';
 import { validityReport, ValidityReport as ValidityReportCore } from './validity/validityReport';
 
@@ -37,7 +35,6 @@ export type { VarianceName } from './fit/residuals';
 export type { MultiplierName } from './validity/validityBootstrap';
 export { MAX_DRAWS, MAX_GRID } from './validity/validityTest';
 export { Random } from './numeric/random';
-export type { BinnedMean } from './plots/binnedMeans';
 
 type Column = ArrayLike<number>;
 
@@ -107,28 +104,21 @@ export interface ComplierCurveResult extends Common {
 
 export type ValidityReport = ValidityReportCore & Common & { eligible: 'above' | 'below' };
 
-export interface DensityReport extends Common {
-  method: 'local_polynomial' | 'mccrary' | 'none';
-  log_ratio: number;
-  se: number;
-  pvalue: number;
-  mccrary_pvalue?: number;
-  local_polynomial_pvalue?: number;
+export interface DensityOptions {
+  /** The eligible side (default above): the log ratio is eligible side over the other. */
+  eligible?: 'above' | 'below';
+  /** McCrary's bin width and bandwidth (rules of thumb when absent). */
+  bin?: number;
+  bandwidth?: number;
+  donut?: number;
+  missing?: { score?: Uint8Array };
 }
 
-export interface BalanceReport extends Common {
-  jump: number;
-  se: number;
-  pvalue: number;
-  permutation_pvalue?: number;
-  q?: number;
-}
+export type DensityReport = DensitySection & Common;
 
-export interface BinsReport extends Omit<Common, 'bandwidth'> {
-  bins: BinnedMean[];
-  binsBelow: number;
-  binsAbove: number;
-}
+export type BalanceReport = Omit<BalanceRow, 'bandwidth' | 'rows' | 'warnings'> & Common;
+
+export type BinsReport = Omit<BinnedSeries, 'name'> & Common;
 
 function fail(code: string, argument: string, message: string, index?: number): never {
   throw Object.assign(new CutlineError(message), { code, argument, index });
@@ -448,45 +438,33 @@ export function validity(score: Column, treated: Column, outcome: Column, cutoff
   };
 }
 
-/** CUTLINE.DENSITYTEST: a jump in the density of the score (local polynomial headline, McCrary beside). */
-export function densityTest(score: Column, cutoff: number, o: EstimateOptions & { bin?: number; densityBandwidth?: number } = {}): DensityReport {
+/** Units with c − h < score < c and c ≤ score < c + h. */
+function windowCounts(score: ArrayLike<number>, cutoff: number, h: number): { below: number; above: number } {
+  let below = 0;
+  let above = 0;
+  for (let i = 0; i < score.length; i++) {
+    const x = score[i] - cutoff;
+    if (x >= 0) {
+      if (x < h) above++;
+    } else if (-x < h) below++;
+  }
+  return { below, above };
+}
+
+/** CUTLINE.DENSITYTEST: a jump in the density of the score (local polynomial headline, McCrary beside; method 'none' when neither is reliable). */
+export function densityTest(score: Column, cutoff: number, o: DensityOptions = {}): DensityReport {
   checkColumns([['score', score]], o.missing);
   const s = f64(score);
   const p = listwise(s.length, [o.missing?.score], donutOf(s, cutoff, o));
   const ps = p.pick(s);
   sides(ps, cutoff);
-  const sign = o.eligible === 'below' ? -1 : 1;
-  const d = densitySection(ps, cutoff, { sign, bin: o.bin, bandwidth: o.densityBandwidth });
-  if (!d) fail('too-few', 'score', 'neither density test can be computed on these scores');
-  if (d.method === 'none' || d.pvalue === undefined || d.log_ratio === undefined || d.se === undefined) {
-    fail('too-few', 'score', d.unreliable ?? 'no density test is reliable on these scores');
-  }
-  const lp = d.local_polynomial;
-  const bandwidth = lp ? lp.bandwidth : d.mccrary!.bandwidth;
-  let below = 0;
-  let above = 0;
-  for (let i = 0; i < ps.length; i++) {
-    const x = ps[i] - cutoff;
-    if (Math.abs(x) <= bandwidth) {
-      if (x < 0) below++;
-      else above++;
-    }
-  }
-  return {
-    method: d.method,
-    log_ratio: d.log_ratio,
-    se: d.se,
-    pvalue: d.pvalue,
-    mccrary_pvalue: d.mccrary?.pvalue,
-    local_polynomial_pvalue: lp?.pvalue,
-    bandwidth,
-    counts: { below, above },
-    rows: { used: p.rows.length, dropped: p.dropped },
-    warnings: d.warnings,
-  };
+  const d = densitySection(ps, cutoff, { sign: o.eligible === 'below' ? -1 : 1, bin: o.bin, bandwidth: o.bandwidth });
+  if (!d) fail('too-few', 'score', 'neither density test could be computed on these data');
+  const h = d.local_polynomial?.bandwidth ?? d.mccrary?.bandwidth ?? NaN;
+  return { ...d, bandwidth: h, counts: windowCounts(ps, cutoff, h), rows: { used: p.rows.length, dropped: p.dropped }, warnings: d.warnings };
 }
 
-/** CUTLINE.BALANCE: the jump in a covariate at its own bandwidth, and the permutation test. */
+/** CUTLINE.BALANCE: a covariate's jump at its own bandwidth and the permutation test — a check's balance row. */
 export function covariateBalance(score: Column, covariate: Column, cutoff: number, o: EstimateOptions & { seed?: number } = {}): BalanceReport {
   checkColumns([['score', score], ['covariate', covariate]], o.missing);
   const { kernel, variance } = resolve(o);
@@ -495,39 +473,20 @@ export function covariateBalance(score: Column, covariate: Column, cutoff: numbe
   const m = o.missing ?? {};
   const p = listwise(s.length, [m.score, m.covariate, variance === 'cluster' ? m.clusters : undefined], donutOf(s, cutoff, o));
   const ps = p.pick(s);
-  const pc = p.pick(c);
   sides(ps, cutoff);
-  varies(pc, 'covariate', 'there is nothing to test');
-  const h = chooseBandwidth(ps, pc, cutoff, { rule: o.rule, kernel, typed: o.bandwidth });
-  const sign = o.eligible === 'below' ? -1 : 1;
-  const win = boundaryWindow(ps, cutoff, h.value, kernel);
-  const e = jumpAt(win, pc, { variance, clusters: variance === 'cluster' && o.clusters ? p.pick(o.clusters) : undefined, sign });
-  const warnings = [...h.warnings];
-  let perm: { pvalue: number; q: number } | undefined;
-  try {
-    const r = permutationBalanceTest(ps, pc, cutoff, { seed: o.seed });
-    perm = r;
-    warnings.push(...r.warnings);
-  } catch (err) {
-    if (!(err instanceof CutlineError)) throw err;
-    warnings.push(`The permutation test could not be computed: ${err.message}`);
-  }
-  return {
-    jump: e.estimate,
-    se: e.se,
-    pvalue: e.pvalue,
-    permutation_pvalue: perm?.pvalue,
-    q: perm?.q,
-    bandwidth: h.value,
-    counts: { below: win.below.index.length, above: win.above.index.length },
-    rows: { used: p.rows.length, dropped: p.dropped },
-    warnings,
-  };
+  const [row] = balanceSection(
+    [{ name: 'covariate', score: ps, values: p.pick(c), clusters: variance === 'cluster' && o.clusters ? p.pick(o.clusters) : undefined, dropped: p.dropped }],
+    cutoff,
+    { rule: o.rule, typed: o.bandwidth, kernel, variance, sign: o.eligible === 'below' ? -1 : 1, seed: o.seed },
+  );
+  const h = row.bandwidth ?? NaN;
+  return { ...row, bandwidth: h, counts: Number.isFinite(h) ? windowCounts(ps, cutoff, h) : { below: 0, above: 0 }, rows: row.rows, warnings: row.warnings };
 }
 
-/** CUTLINE.BINS: binned means for a plot. */
-export function binnedMeansAt(score: Column, values: Column, cutoff: number, o: EstimateOptions & { binsBelow?: number; binsAbove?: number } = {}): BinsReport {
+/** CUTLINE.BINS: binned means for a plot, with the fit lines at the column's own bandwidth. */
+export function binnedMeansAt(score: Column, values: Column, cutoff: number, o: EstimateOptions = {}): BinsReport {
   checkColumns([['score', score], ['values', values]], o.missing);
+  const { kernel } = resolve(o);
   const s = f64(score);
   const v = f64(values);
   const m = o.missing ?? {};
@@ -535,15 +494,17 @@ export function binnedMeansAt(score: Column, values: Column, cutoff: number, o: 
   const ps = p.pick(s);
   const pv = p.pick(v);
   sides(ps, cutoff);
-  const b = binnedMeans(ps, pv, cutoff, { binsBelow: o.binsBelow, binsAbove: o.binsAbove });
-  let below = 0;
-  for (let i = 0; i < ps.length; i++) if (ps[i] < cutoff) below++;
+  const bw = chooseBandwidth(ps, pv, cutoff, { rule: o.rule, kernel, typed: o.bandwidth });
+  const series = binnedSeries('values', ps, pv, cutoff, bw.value, kernel);
   return {
-    bins: b.bins,
-    binsBelow: b.binsBelow,
-    binsAbove: b.binsAbove,
-    counts: { below, above: ps.length - below },
+    bins: series.bins,
+    bins_below: series.bins_below,
+    bins_above: series.bins_above,
+    rule: series.rule,
+    fit: series.fit,
+    bandwidth: bw.value,
+    counts: windowCounts(ps, cutoff, bw.value),
     rows: { used: p.rows.length, dropped: p.dropped },
-    warnings: [],
+    warnings: [...bw.warnings],
   };
 }

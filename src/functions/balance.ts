@@ -9,6 +9,7 @@
 import { covariateBalance } from '../engine/index';
 import { cellOf, guarded, Matrix, remembered, single } from './call';
 import { commonRows, table } from './detail';
+import { excelError } from './excelError';
 import { prepareCall, ranges } from './prepare';
 
 /**
@@ -36,6 +37,9 @@ export function balance(
   return guarded('BALANCE', (): Matrix => {
     const c = prepareCall('BALANCE', { ranges: ranges(['score', score], ['covariate', covariate]), cutoff, bandwidth, settings, settingsPosition: 4, detail }, invocation);
     const r = remembered(c.key, () => covariateBalance(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
+    if (r.pvalue === undefined) {
+      throw excelError('#N/A', `CUTLINE.BALANCE: the jump in the covariate could not be computed${r.warnings.length ? `: ${r.warnings.join('; ')}` : ''}`);
+    }
     if (!c.detail) return single('BALANCE', r.pvalue);
     return table([
       ['jump', cellOf(r.jump)],

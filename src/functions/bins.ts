@@ -1,8 +1,9 @@
 /**
  * CUTLINE.BINS: binned means of a column on each side of the cutoff, for a
- * plot (evenly spaced bins, the number chosen by an IMSE rule unless given),
+ * plot (evenly spaced bins, their number chosen by an IMSE rule),
  * by the engine's `binnedMeansAt`. It spills a table with a title row: bin
- * midpoint, mean, units, side.
+ * midpoint, mean, units, side; with detail, the numbers of bins, the
+ * bandwidth of the fit lines, the rows used and the warnings below it.
  *
  * @example =CUTLINE.BINS(C2:C6001, E2:E6001, 60)
  */
@@ -17,7 +18,7 @@ import { prepareCall, ranges } from './prepare';
  * @param score Scores (running variable): one column; a title cell at the top is skipped.
  * @param values Values to average in each bin, the same rows as score.
  * @param cutoff Cutoff of the score: units at or above it are on the upper side.
- * @param [settings] Two-column range of settings (name, value), e.g. bins below, bins above, donut.
+ * @param [settings] Two-column range of settings (name, value), e.g. rule, kernel, donut.
  * @param [detail] TRUE adds rows used and dropped, the numbers of bins and warnings below the table.
  * @param invocation Invocation (supplied by Excel).
  * @returns A table of bins: midpoint, mean, units, side.
@@ -26,11 +27,9 @@ import { prepareCall, ranges } from './prepare';
 export function bins(score: any[][], values: any[][], cutoff: number, settings?: any[][], detail?: boolean, invocation?: CustomFunctions.Invocation): any[][] {
   return guarded('BINS', (): Matrix => {
     const c = prepareCall('BINS', { ranges: ranges(['score', score], ['values', values]), cutoff, settings, settingsPosition: 3, detail }, invocation);
-    const r = remembered(c.key, () =>
-      binnedMeansAt(c.cols[0].values, c.cols[1].values, c.cutoff, { ...c.opts, binsBelow: c.settings.binsBelow, binsAbove: c.settings.binsAbove }),
-    );
+    const r = remembered(c.key, () => binnedMeansAt(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
     const rows: Cell[][] = [['bin midpoint', 'mean', 'units', 'side'], ...r.bins.map((b): Cell[] => [cellOf(b.midpoint), cellOf(b.mean), b.count, b.side])];
     if (!c.detail) return rows;
-    return table([...rows, ['bins laid below the cutoff', r.binsBelow], ['bins laid above the cutoff', r.binsAbove], ...commonRows({ ...r, bandwidth: undefined })], 4);
+    return table([...rows, ['bins laid below the cutoff', r.bins_below], ['bins laid above the cutoff', r.bins_above], ...commonRows(r)], 4);
   });
 }

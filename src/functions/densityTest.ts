@@ -10,6 +10,7 @@
 import { densityTest } from '../engine/index';
 import { cellOf, guarded, Matrix, remembered, single } from './call';
 import { commonRows, table } from './detail';
+import { excelError } from './excelError';
 import { prepareCall, ranges } from './prepare';
 
 /**
@@ -27,16 +28,26 @@ export function densitytest(score: any[][], cutoff: number, settings?: any[][], 
   return guarded('DENSITYTEST', (): Matrix => {
     const c = prepareCall('DENSITYTEST', { ranges: ranges(['score', score]), cutoff, settings, settingsPosition: 2, detail }, invocation);
     const r = remembered(c.key, () =>
-      densityTest(c.cols[0].values, c.cutoff, { ...c.opts, bin: c.settings.densityBin, densityBandwidth: c.settings.densityBandwidth }),
+      densityTest(c.cols[0].values, c.cutoff, {
+        eligible: c.settings.eligible,
+        bin: c.settings.densityBin,
+        bandwidth: c.settings.densityBandwidth,
+        donut: c.settings.donut,
+        missing: { score: c.cols[0].missing },
+      }),
     );
+    // Mass points can leave no density test reliable: then there is no p-value to give.
+    if (r.method === 'none' || r.pvalue === undefined) {
+      throw excelError('#N/A', `CUTLINE.DENSITYTEST: ${r.unreliable ?? 'no density test is reliable on these scores'}`);
+    }
     if (!c.detail) return single('DENSITYTEST', r.pvalue);
     return table([
       ['p-value', cellOf(r.pvalue)],
       ['test', r.method === 'local_polynomial' ? 'local polynomial (Cattaneo, Jansson & Ma)' : 'McCrary'],
       ['log ratio of the densities', cellOf(r.log_ratio)],
       ['standard error', cellOf(r.se)],
-      ['p-value, local polynomial', r.local_polynomial_pvalue === undefined ? 'not computed' : cellOf(r.local_polynomial_pvalue)],
-      ['p-value, McCrary', r.mccrary_pvalue === undefined ? 'not computed' : cellOf(r.mccrary_pvalue)],
+      ['p-value, local polynomial', r.local_polynomial ? cellOf(r.local_polynomial.pvalue) : 'not computed'],
+      ['p-value, McCrary', r.mccrary ? cellOf(r.mccrary.pvalue) : 'not computed'],
       ...commonRows(r),
     ]);
   });

@@ -27,8 +27,6 @@ export interface Settings {
   trim?: number;
   multiplier?: MultiplierName;
   sensitivity?: number[];
-  binsBelow?: number;
-  binsAbove?: number;
   densityBin?: number;
   densityBandwidth?: number;
   purpose?: 'estimate' | 'test';
@@ -58,8 +56,6 @@ export const SETTINGS: ReadonlyArray<{ name: string; field: keyof Settings; kind
   { name: 'multiplier', field: 'multiplier', kind: { choices: ['normal', 'rademacher'] }, meaning: 'bootstrap multipliers of the validity test (normal)' },
   { name: 'trend guard', field: 'trendGuard', kind: { choices: ['on', 'off'] }, meaning: 'VALIDITY: also test the trend-adjusted outcomes and report the larger p-value (on); off: the published test alone' },
   { name: 'sensitivity', field: 'sensitivity', kind: { list: true }, meaning: 'multiples of the test bandwidth to rerun the validity test at, e.g. "0.5,1,2" (none)' },
-  { name: 'bins below', field: 'binsBelow', kind: { number: 'whole' }, meaning: 'number of bins below the cutoff for BINS (data-driven)' },
-  { name: 'bins above', field: 'binsAbove', kind: { number: 'whole' }, meaning: 'number of bins above the cutoff for BINS (data-driven)' },
   { name: 'density bin', field: 'densityBin', kind: { number: 'positive' }, meaning: "bin width of McCrary's density test (rule of thumb)" },
   { name: 'density bandwidth', field: 'densityBandwidth', kind: { number: 'positive' }, meaning: "bandwidth of McCrary's density test (rule of thumb)" },
   { name: 'purpose', field: 'purpose', kind: { choices: ['estimate', 'test'] }, meaning: 'BANDWIDTH: of the estimates, or of the validity test (estimate)' },

@@ -27,7 +27,10 @@ function get(p: string, ca: Buffer): Promise<{ status: number; type: string; bod
 }
 
 beforeAll(async () => {
+  // office-addin-dev-certs says what it did on the console; the test says it instead.
+  const log = jest.spyOn(console, 'log').mockImplementation(() => undefined);
   await generateCertificates(path.join(dir, 'ca.crt'), path.join(dir, 'localhost.crt'), path.join(dir, 'localhost.key'), 1, ['localhost', '127.0.0.1']);
+  log.mockRestore();
   server = spawn(process.execPath, [path.join(root, 'bin/serve-addin.cjs')], {
     env: { ...process.env, CUTLINE_PORT: String(port), CUTLINE_CERT_DIR: dir },
     stdio: ['ignore', 'pipe', 'pipe'],

@@ -19,14 +19,14 @@ test('names ignore case, spaces, hyphens and underscores; blank rows and a title
       ['Setting', 'Value'],
       ['KERNEL', 'Uniform'],
       ['', ''],
-      ['bins_below', 12],
+      ['trend_guard', 'OFF'],
       ['Density-Bandwidth', '2.5'],
       ['sensitivity', '0.5, 1, 2'],
       ['level', 0.9],
       [null, null],
       ['seed', ''],
     ]),
-  ).toEqual({ kernel: 'uniform', binsBelow: 12, densityBandwidth: 2.5, sensitivity: [0.5, 1, 2], level: 0.9 });
+  ).toEqual({ kernel: 'uniform', trendGuard: 'off', densityBandwidth: 2.5, sensitivity: [0.5, 1, 2], level: 0.9 });
   expect(readSettings(null)).toEqual({});
   expect(readSettings([['sensitivity', 'off']])).toEqual({ sensitivity: [] });
 });
