@@ -232,7 +232,7 @@ function complierSummary(
   return out;
 }
 
-export function requireVaries(v: Float64Array, what: string, why: string): void {
+function requireVaries(v: Float64Array, what: string, why: string): void {
   for (let i = 1; i < v.length; i++) if (v[i] !== v[0]) return;
   throw new CutlineError(`${what} is constant (every used row is ${v[0]}): ${why}`);
 }
