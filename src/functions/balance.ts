@@ -7,7 +7,7 @@
  * @example =CUTLINE.BALANCE(C2:C6001, G2:G6001, 60)
  */
 import { covariateBalance } from '../engine/index';
-import { cellOf, guarded, Matrix, remembered, single } from './call';
+import { cellOf, guarded, Matrix, single } from './call';
 import { commonRows, table } from './detail';
 import { excelError } from './excelError';
 import { prepareCall, ranges } from './prepare';
@@ -36,7 +36,7 @@ export function balance(
 ): any[][] {
   return guarded('BALANCE', (): Matrix => {
     const c = prepareCall('BALANCE', { ranges: ranges(['score', score], ['covariate', covariate]), cutoff, bandwidth, settings, settingsPosition: 4, detail }, invocation);
-    const r = remembered(c.key, () => covariateBalance(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
+    const r = c.result(() => covariateBalance(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
     if (r.pvalue === undefined) {
       throw excelError('#N/A', `CUTLINE.BALANCE: the jump in the covariate could not be computed${r.warnings.length ? `: ${r.warnings.join('; ')}` : ''}`);
     }

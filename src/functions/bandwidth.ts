@@ -8,7 +8,7 @@
  * @example =CUTLINE.BANDWIDTH(C2:C6001, E2:E6001, 60, D2:D6001)
  */
 import { selectBandwidth } from '../engine/index';
-import { guarded, Matrix, remembered, single } from './call';
+import { guarded, Matrix, single } from './call';
 import { commonRows, table } from './detail';
 import { prepareCall } from './prepare';
 
@@ -42,7 +42,7 @@ export function bandwidth(
       ...(given ? [{ argument: 'treated', cells: treated!, position: 3, binary: true }] : []),
     ];
     const c = prepareCall('BANDWIDTH', { ranges: rangeList, cutoff, settings, settingsPosition: 4, detail }, invocation);
-    const r = remembered(c.key, () =>
+    const r = c.result(() =>
       selectBandwidth(c.cols[0].values, c.cols[1].values, c.cutoff, {
         ...c.opts,
         treated: given ? c.cols[2].values : undefined,

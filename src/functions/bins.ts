@@ -8,7 +8,7 @@
  * @example =CUTLINE.BINS(C2:C6001, E2:E6001, 60)
  */
 import { binnedMeansAt } from '../engine/index';
-import { Cell, cellOf, guarded, Matrix, remembered } from './call';
+import { Cell, cellOf, guarded, Matrix } from './call';
 import { commonRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';
 
@@ -27,7 +27,7 @@ import { prepareCall, ranges } from './prepare';
 export function bins(score: any[][], values: any[][], cutoff: number, settings?: any[][], detail?: boolean, invocation?: CustomFunctions.Invocation): any[][] {
   return guarded('BINS', (): Matrix => {
     const c = prepareCall('BINS', { ranges: ranges(['score', score], ['values', values]), cutoff, settings, settingsPosition: 3, detail }, invocation);
-    const r = remembered(c.key, () => binnedMeansAt(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
+    const r = c.result(() => binnedMeansAt(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
     const rows: Cell[][] = [['bin midpoint', 'mean', 'units', 'side'], ...r.bins.map((b): Cell[] => [cellOf(b.midpoint), cellOf(b.mean), b.count, b.side])];
     if (!c.detail) return rows;
     return table([...rows, ['bins laid below the cutoff', r.bins_below], ['bins laid above the cutoff', r.bins_above], ...commonRows(r)], 4);

@@ -7,7 +7,7 @@
  * @example =CUTLINE.COMPLIERCDF(C2:C6001, D2:D6001, E2:E6001, 60, J2:J26, 1)
  */
 import { complierCdfAt } from '../engine/index';
-import { guarded, Matrix, remembered } from './call';
+import { guarded, Matrix } from './call';
 import { armArgument, atArgument, curveMatrix } from './complierCurve';
 import { prepareCall, ranges } from './prepare';
 
@@ -55,7 +55,7 @@ export function compliercdf(
       },
       invocation,
     );
-    const r = remembered(c.key, () => complierCdfAt(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, a.values, side, c.opts));
+    const r = c.result(() => complierCdfAt(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, a.values, side, c.opts));
     return curveMatrix(r, 'cdf', c.detail, a.row);
   });
 }

@@ -8,7 +8,7 @@
  * @example =CUTLINE.DENSITYTEST(C2:C6001, 60)
  */
 import { densityTest } from '../engine/index';
-import { cellOf, guarded, Matrix, remembered, single } from './call';
+import { cellOf, guarded, Matrix, single } from './call';
 import { commonRows, table } from './detail';
 import { excelError } from './excelError';
 import { prepareCall, ranges } from './prepare';
@@ -27,7 +27,7 @@ import { prepareCall, ranges } from './prepare';
 export function densitytest(score: any[][], cutoff: number, settings?: any[][], detail?: boolean, invocation?: CustomFunctions.Invocation): any[][] {
   return guarded('DENSITYTEST', (): Matrix => {
     const c = prepareCall('DENSITYTEST', { ranges: ranges(['score', score]), cutoff, settings, settingsPosition: 2, detail }, invocation);
-    const r = remembered(c.key, () =>
+    const r = c.result(() =>
       densityTest(c.cols[0].values, c.cutoff, {
         eligible: c.settings.eligible,
         bin: c.settings.densityBin,

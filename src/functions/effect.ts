@@ -8,7 +8,7 @@
  * @example =CUTLINE.EFFECT(C2:C6001, D2:D6001, E2:E6001, 60)
  */
 import { complierEffect } from '../engine/index';
-import { cellOf, guarded, Matrix, remembered, single } from './call';
+import { cellOf, guarded, Matrix, single } from './call';
 import { commonRows, estimateRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';
 
@@ -42,7 +42,7 @@ export function effect(
       { ranges: ranges(['score', score], ['treated', treated, true], ['outcome', outcome]), cutoff, bandwidth, settings, settingsPosition: 5, detail },
       invocation,
     );
-    const r = remembered(c.key, () => complierEffect(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, c.opts));
+    const r = c.result(() => complierEffect(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, c.opts));
     if (!c.detail) return single('EFFECT', r.effect.estimate);
     return table([
       ...estimateRows('effect for compliers', r.effect, c.settings.level),

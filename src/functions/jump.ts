@@ -6,7 +6,7 @@
  * @example =CUTLINE.JUMP(C2:C6001, E2:E6001, 60)
  */
 import { outcomeJump } from '../engine/index';
-import { guarded, Matrix, remembered, single } from './call';
+import { guarded, Matrix, single } from './call';
 import { commonRows, estimateRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';
 
@@ -34,7 +34,7 @@ export function jump(
 ): any[][] {
   return guarded('JUMP', (): Matrix => {
     const c = prepareCall('JUMP', { ranges: ranges(['score', score], ['values', values]), cutoff, bandwidth, settings, settingsPosition: 4, detail }, invocation);
-    const r = remembered(c.key, () => outcomeJump(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
+    const r = c.result(() => outcomeJump(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
     if (!c.detail) return single('JUMP', r.estimate);
     return table([...estimateRows('jump', r, c.settings.level), ['eligible side', r.eligible], ...commonRows(r)]);
   });

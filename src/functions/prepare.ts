@@ -4,7 +4,8 @@
  * and the detail flag; and the key its result is remembered under.
  */
 import { ValidityOptions } from '../engine/index';
-import { RangeColumn } from '../input/range';
+import { CutlineError } from '../engine/index';
+import { dataCellPlace, RangeColumn, RangeInputError } from '../input/range';
 import { Settings } from '../input/settings';
 import {
   bandwidthArgument,
@@ -15,6 +16,7 @@ import {
   rangesKey,
   RangeSpec,
   readRanges,
+  remembered,
   settingsArgument,
   settingsKey,
 } from './call';
@@ -30,6 +32,8 @@ export interface PreparedCall {
   detail: boolean;
   /** The function, the ranges' cells, cutoff, bandwidth and settings (the detail flag only changes the layout). */
   key: string;
+  /** The engine's result for this call, computed once while remembered; an engine error about a row names its cell. */
+  result<T>(compute: () => T): T;
 }
 
 export interface CallArguments {
@@ -69,7 +73,26 @@ export function prepareCall(fn: string, a: CallArguments, invocation?: Invocatio
     settings,
     detail,
     key: `${fn}|${cellsKey}|${cutoff}|${bandwidth ?? ''}|${settingsKey(settings)}|${a.extraKey ?? ''}`,
+    result<T>(compute: () => T): T {
+      return remembered(this.key, () => {
+        try {
+          return compute();
+        } catch (e) {
+          throw located(e, a.ranges, invocation);
+        }
+      });
+    },
   };
+}
+
+/** An engine error that names an argument and a 0-based row, said with the range's cell. */
+function located(e: unknown, specs: RangeSpec[], invocation?: InvocationLike | null): unknown {
+  if (!(e instanceof CutlineError)) return e;
+  const { argument, index } = e as CutlineError & { argument?: string; index?: number };
+  const spec = specs.find((s) => s.argument === argument);
+  if (!spec || index === undefined || !Number.isInteger(index)) return e;
+  const place = dataCellPlace({ argument: spec.argument, cells: spec.cells, address: invocation?.parameterAddresses?.[spec.position] }, index);
+  return new RangeInputError(`${spec.argument}: ${place}: ${e.message}`, spec.argument);
 }
 
 /** The range arguments, in order, from (name, cells, binary) triples. */

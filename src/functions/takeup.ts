@@ -5,7 +5,7 @@
  * @example =CUTLINE.TAKEUP(C2:C6001, D2:D6001, 60)
  */
 import { takeupJump } from '../engine/index';
-import { guarded, Matrix, remembered, single } from './call';
+import { guarded, Matrix, single } from './call';
 import { commonRows, estimateRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';
 
@@ -37,7 +37,7 @@ export function takeup(
       { ranges: ranges(['score', score], ['treated', treated, true]), cutoff, bandwidth, settings, settingsPosition: 4, detail },
       invocation,
     );
-    const r = remembered(c.key, () => takeupJump(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
+    const r = c.result(() => takeupJump(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
     if (!c.detail) return single('TAKEUP', r.estimate);
     return table([...estimateRows('take-up jump', r, c.settings.level), ['eligible side', r.eligible], ...commonRows(r)]);
   });

@@ -14,13 +14,13 @@
  * @example =CUTLINE.VALIDITY(C2:C6001, D2:D6001, E2:E6001, 60)
  */
 import { validity as validityTest } from '../engine/index';
-import { cellOf, guarded, InvocationLike, isRemembered, Matrix, remembered, single } from './call';
+import { cellOf, guarded, InvocationLike, isRemembered, Matrix, single } from './call';
 import { excelError, toExcelError } from './excelError';
 import { commonRows, Row, table } from './detail';
 import { PreparedCall, prepareCall, ranges } from './prepare';
 
 function present(c: PreparedCall): Matrix {
-  const r = remembered(c.key, () => validityTest(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, c.opts));
+  const r = c.result(() => validityTest(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, c.opts));
   if (!c.detail) return single('VALIDITY', r.pvalue);
   const o = r.observed;
   const arm = o.worst.arm === 1 ? 'treated' : 'untreated';

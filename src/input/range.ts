@@ -122,6 +122,16 @@ export function cellPlace(a: RangeArgument, k: number): string {
 }
 
 /**
+ * Where the `index`-th data value (0-based, after a title) of a range is, for
+ * a message: how the engine's 0-based position in a column becomes a cell.
+ */
+export function dataCellPlace(a: RangeArgument, index: number): string {
+  const cells = view(a);
+  const title = cells.length > 0 && isHeader(cells.at(0)) ? 1 : 0;
+  return cellPlace(a, title + index);
+}
+
+/**
  * The columns of one call, checked and of one length. Errors name the
  * argument and the first bad cell; a range of the wrong length names both lengths.
  */

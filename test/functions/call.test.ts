@@ -4,6 +4,8 @@
 // remembered by key; arguments are checked by name.
 import { hashCells } from '../../src/functions/cache';
 import { bandwidthArgument, cacheSizes, flagArgument, forgetAll, numberArgument, rangesKey, readRanges, remembered } from '../../src/functions/call';
+import { CutlineError } from '../../src/engine/index';
+import { prepareCall } from '../../src/functions/prepare';
 import { RangeInputError } from '../../src/input/range';
 
 const col = (...cells: unknown[]): unknown[][] => cells.map((c) => [c]);
@@ -63,4 +65,25 @@ test('number, bandwidth and flag arguments', () => {
   expect(() => bandwidthArgument(0)).toThrow(/bandwidth must be a positive number; it is 0/);
   expect([flagArgument(null), flagArgument(true), flagArgument(0), flagArgument('true')]).toEqual([false, true, false, true]);
   expect(() => flagArgument('yes')).toThrow('detail must be TRUE or FALSE; it is "yes"');
+});
+
+test('an engine error about a row of an argument names the cell (title rows counted)', () => {
+  const c = prepareCall(
+    'EFFECT',
+    {
+      ranges: [
+        { argument: 'score', cells: col('score', 1, 2, 3), position: 0 },
+        { argument: 'outcome', cells: col('bill', 5, 6, 7), position: 2 },
+      ],
+      cutoff: 2,
+      settings: null,
+      settingsPosition: 5,
+      detail: null,
+    },
+    { parameterAddresses: ['C1:C4', 'D1:D4', 'E1:E4'] },
+  );
+  const engineError = Object.assign(new CutlineError('not a finite number'), { code: 'bad-value', argument: 'outcome', index: 2 });
+  expect(() => c.result(() => { throw engineError; })).toThrow(new RangeInputError('outcome: cell E4: not a finite number', 'outcome'));
+  const other = Object.assign(new CutlineError('no unit below the cutoff'), { code: 'empty-side', argument: 'cutoff' });
+  expect(() => c.result(() => { throw other; })).toThrow(other);
 });
