@@ -12,10 +12,9 @@
  * spread shrinking as n grows.
  * Run: node bin/run-ts.cjs bench/bandwidthConvergence.ts [reps]
  */
-import { chooseBandwidth } from '../src/engine/bandwidth/bandwidth';
-import { Random } from '../src/engine/numeric/random';
 import { simulateDesign } from '../test/helpers/bandwidthDesigns';
 import population from '../test/fixtures/bandwidth_population/population.json';
+import { Random, chooseBandwidth } from '../src/engine';
 
 const pop = population as { designs: { name: string; h_star: Record<string, number> }[] };
 const reps = Number(process.argv[2] ?? 200);

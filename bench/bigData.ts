@@ -8,7 +8,7 @@
 import * as fs from 'fs';
 import * as os from 'os';
 import * as path from 'path';
-import { Random } from '../src/engine/numeric/random';
+import { Random } from '../src/engine';
 
 export type Shape = 'linear' | 'curved';
 

@@ -9,12 +9,10 @@
 import { spawnSync } from 'child_process';
 import * as fs from 'fs';
 import * as path from 'path';
-import { runCheck } from '../src/engine/check/check';
 import { numericColumn } from '../src/input/columns';
 import { parseCsv } from '../src/input/csv';
 import { bigCsvPath, Shape } from './bigData';
-import { bandwidthMse } from '../src/engine/bandwidth/bandwidthMse';
-import { estimatesAtCutoff } from '../src/engine/fit/estimatesAtCutoff';
+import { bandwidthMse, estimatesAtCutoff, runCheck } from '../src/engine';
 
 const root = path.resolve(__dirname, '..', '..', '..');
 const cli = fs.existsSync(path.join(process.cwd(), 'bin/cutline.cjs')) ? path.join(process.cwd(), 'bin/cutline.cjs') : path.join(root, 'bin/cutline.cjs');
@@ -63,8 +61,8 @@ export function phases(shape: Shape): void {
   const h = bandwidthMse(score, outcome, 0, 'triangular', treated).bandwidth;
   const tBw = performance.now() - t;
   t = performance.now();
-  const e = estimatesAtCutoff(score, treated, treated, 0, { bandwidth: h, kernel: 'triangular', variance: 'nn', sign: 1 });
-  estimatesAtCutoff(score, treated, outcome, 0, { bandwidth: h, kernel: 'triangular', variance: 'nn', sign: 1, window: e.window, takeup: e.smoothedTakeup });
+  const e = estimatesAtCutoff(score, treated, treated, 0, { bandwidth: h, kernel: 'triangular', variance: 'neighbours', sign: 1 });
+  estimatesAtCutoff(score, treated, outcome, 0, { bandwidth: h, kernel: 'triangular', variance: 'neighbours', sign: 1, window: e.window, takeup: e.smoothedTakeup });
   const tEst = performance.now() - t;
   t = performance.now();
   runCheck({ score: { name: 'score', values: Float64Array.from(score) }, treated: { name: 'treated', values: treated }, outcomes: [{ name: 'outcome', values: outcome }] }, { cutoff: 0, sensitivity: [] });

@@ -5,13 +5,7 @@
  * and the binned means. Prints figures; asserts nothing.
  * Run: node bin/run-ts.cjs bench/densityBench.ts
  */
-import { binnedMeans } from '../src/engine/plots/binnedMeans';
-import { boundaryWindow } from '../src/engine/fit/boundaryWindow';
-import { permutationBalanceTest } from '../src/engine/covariates/covariatePermutation';
-import { localPolynomialDensityTest } from '../src/engine/density/densityLocalPolynomial';
-import { mccraryTest } from '../src/engine/density/densityMcCrary';
-import { jumpAt } from '../src/engine/fit/jumpAt';
-import { Random } from '../src/engine/numeric/random';
+import { Random, binnedMeans, boundaryWindow, jumpAt, localPolynomialDensityTest, mccraryTest, permutationBalanceTest } from '../src/engine';
 
 const n = 1_000_000;
 const rng = new Random(2024);
@@ -37,7 +31,7 @@ for (const pass of [1, 2]) {
   const parts = [
     time('McCrary density test', () => mccraryTest(score, cutoff)),
     time('local polynomial density test', () => localPolynomialDensityTest(score, cutoff)),
-    time('covariate jump (window + jumpAt, nn)', () => jumpAt(boundaryWindow(score, cutoff, h, 'triangular'), age, { variance: 'nn' })),
+    time('covariate jump (window + jumpAt, neighbours)', () => jumpAt(boundaryWindow(score, cutoff, h, 'triangular'), age, { variance: 'neighbours' })),
     time('covariate permutation test (999 draws)', () => permutationBalanceTest(score, age, cutoff)),
     time('binned means (IMSE count)', () => binnedMeans(score, age, cutoff)),
   ];

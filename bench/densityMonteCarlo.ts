@@ -6,10 +6,7 @@
  * Nominal level 5%; MC standard errors sqrt(p(1−p)/reps).
  * Run: node bin/run-ts.cjs bench/densityMonteCarlo.ts [reps]
  */
-import { permutationBalanceTest } from '../src/engine/covariates/covariatePermutation';
-import { localPolynomialDensityTest } from '../src/engine/density/densityLocalPolynomial';
-import { mccraryTest } from '../src/engine/density/densityMcCrary';
-import { Random } from '../src/engine/numeric/random';
+import { Random, localPolynomialDensityTest, mccraryTest, permutationBalanceTest } from '../src/engine';
 
 const reps = Number(process.argv[2] ?? 2000);
 const fmt = (k: number, r: number) => {

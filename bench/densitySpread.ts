@@ -13,9 +13,7 @@
  *   right) and the rejection rate at 5% (± MC s.e.).
  * Run: node bin/run-ts.cjs bench/densitySpread.ts [reps]
  */
-import { localPolynomialDensityTest } from '../src/engine/density/densityLocalPolynomial';
-import { mccraryTest } from '../src/engine/density/densityMcCrary';
-import { Random } from '../src/engine/numeric/random';
+import { Random, localPolynomialDensityTest, mccraryTest } from '../src/engine';
 
 const reps = Number(process.argv[2] ?? 1000);
 const mean = (a: number[]) => a.reduce((s, v) => s + v, 0) / a.length;

@@ -16,7 +16,7 @@
  */
 import * as os from 'os';
 import { performance } from 'perf_hooks';
-import { Random } from '../src/engine/index';
+import { Random } from '../src/engine';
 import { balance } from '../src/functions/balance';
 import { bandwidth } from '../src/functions/bandwidth';
 import { bins } from '../src/functions/bins';

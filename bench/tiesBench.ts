@@ -12,8 +12,7 @@ import { spawnSync } from 'child_process';
 import * as fs from 'fs';
 import * as os from 'os';
 import * as path from 'path';
-import { nnResiduals } from '../src/engine/fit/residuals';
-import { estimatesAtCutoff } from '../src/engine/fit/estimatesAtCutoff';
+import { estimatesAtCutoff, neighbourResiduals } from '../src/engine';
 
 let seed = 20261202;
 function rand(): number {
@@ -48,7 +47,7 @@ for (const [name, draw] of designs) {
   const v = Float64Array.from({ length: N }, () => rand());
   const index = Int32Array.from({ length: N }, (_, i) => i);
   // A fresh side object each run: the residuals are remembered per side.
-  const ms = best(3, () => nnResiduals({ index, x }, v));
+  const ms = best(3, () => neighbourResiduals({ index, x }, v));
   times.push(ms);
   process.stdout.write(`  ${name.padEnd(34)} ${ms.toFixed(0).padStart(6)} ms  (${(ms / times[0]).toFixed(2)} × continuous)\n`);
 }
@@ -61,7 +60,7 @@ for (const [name, draw] of designs) {
   const treated = Float64Array.from(score, (s) => (rand() < (s >= 50 ? 0.8 : 0.2) ? 1 : 0));
   const outcome = Float64Array.from(score, (s, i) => 0.02 * s + 2 * treated[i] + rand());
   const ms = best(3, () => {
-    const opts = { bandwidth: 60, kernel: 'triangular' as const, variance: 'nn' as const, sign: 1 as const };
+    const opts = { bandwidth: 60, kernel: 'triangular' as const, variance: 'neighbours' as const, sign: 1 as const };
     const tk = estimatesAtCutoff(Float64Array.from(score), treated, treated, 50, opts);
     estimatesAtCutoff(score, treated, outcome, 50, { ...opts, window: tk.window, takeup: tk.smoothedTakeup });
   });

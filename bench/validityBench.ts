@@ -1,14 +1,11 @@
 /**
- * Timings of the validity test (METHODS.md §4): the whole test and the
+ * Timings of the validity test (docs/methods.md §4): the whole test and the
  * bootstrap alone, at 1e5 and 1e6 rows, 999 normal draws, grid 30, and the
  * Rademacher bootstrap for comparison, and the guarded report (both
  * versions, docs/methods.md §4.8); peak RSS at the end.
  * Run: node bin/run-ts.cjs bench/validityBench.ts
  */
-import { Random } from '../src/engine/numeric/random';
-import { bootstrapMaxima, selection } from '../src/engine/validity/validityBootstrap';
-import { validityReport } from '../src/engine/validity/validityReport';
-import { resolveValidityOptions, validityMomentSets, validityTest } from '../src/engine/validity/validityTest';
+import { Random, bootstrapMaxima, resolveValidityOptions, selection, validityMomentSets, validityReport, validityTest } from '../src/engine';
 
 function data(n: number, seed: number) {
   const rng = new Random(seed);

@@ -43,17 +43,7 @@
  * 199 draws. MC standard error sqrt(p(1 − p)/reps).
  * Run: node bin/run-ts.cjs bench/validityMonteCarlo.ts [reps] [draws] [--quick]
  */
-import { chooseBandwidth } from '../src/engine/bandwidth/bandwidth';
-import { bandwidthMse } from '../src/engine/bandwidth/bandwidthMse';
-import { widenForTies } from '../src/engine/bandwidth/bandwidthTies';
-import { CutlineError } from '../src/engine/errors';
-import { boundaryWindow } from '../src/engine/fit/boundaryWindow';
-import { gathered } from '../src/engine/fit/residuals';
-import { Random } from '../src/engine/numeric/random';
-import { intervalClass } from '../src/engine/validity/intervalClass';
-import { bootstrapMaxima, selection } from '../src/engine/validity/validityBootstrap';
-import { validityMoments } from '../src/engine/validity/validityMoments';
-import { validityReport } from '../src/engine/validity/validityReport';
+import { CutlineError, Random, bandwidthMse, bootstrapMaxima, boundaryWindow, chooseBandwidth, gathered, intervalClass, selection, validityMoments, validityReport, widenForTies } from '../src/engine';
 
 type Shares = [number, number, number, number]; // a, n, c, f
 interface Design {

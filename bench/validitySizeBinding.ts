@@ -22,8 +22,7 @@
  * rate at 5% with its Monte Carlo standard error sqrt(p(1−p)/reps).
  * Run: node bin/run-ts.cjs bench/validitySizeBinding.ts [reps]
  */
-import { Random } from '../src/engine/numeric/random';
-import { validityTest } from '../src/engine/validity/validityTest';
+import { Random, validityTest } from '../src/engine';
 
 interface Design {
   name: string;

@@ -2,8 +2,7 @@
  * The `--json` document of DESIGN.md: the engine's result with the keys of
  * the contract (later checks add their keys when they exist).
  */
-import { CheckResult, ValiditySummary } from '../engine/check/check';
-import { ValidityResult } from '../engine/validity/validityTest';
+import { CheckResult, ValidityResult, ValiditySummary } from '../engine';
 
 /** One version of the test: its statistic, p-value, critical value, intervals and worst interval. */
 function versionJson(v: ValidityResult): Record<string, unknown> {
@@ -66,11 +65,14 @@ export function toJson(r: CheckResult): Record<string, unknown> {
     rows: r.rows,
     bandwidth: { value: r.bandwidth.value, rule: r.bandwidth.rule, kernel: r.bandwidth.kernel, variance: r.bandwidth.variance, window: r.bandwidth.window },
     takeup: r.takeup,
+    takeup_rows: r.takeup_rows,
     test_bandwidth: r.test_bandwidth,
     outcomes: r.outcomes.map((o) => ({
       name: o.name,
       rows: o.rows,
       window: o.window,
+      // The take-up jump on this outcome's own rows: effect = jump / takeup exactly.
+      takeup: o.takeup,
       jump: o.jump,
       effect: o.effect,
       validity: validityJson(o.validity),

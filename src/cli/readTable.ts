@@ -4,7 +4,7 @@
  */
 import * as fs from 'fs';
 import * as path from 'path';
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 import { looksLikeUtf16, parseCsv } from '../input/csv';
 import { Table } from '../input/table';
 import { parseXlsx } from '../input/xlsx';

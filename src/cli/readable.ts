@@ -2,9 +2,7 @@
  * The readable (default) output of `cutline check`: Cutline's own layout, a
  * block per question an evaluator asks, with the cautions of docs/methods.md.
  */
-import { CheckResult, EstimateSummary, OutcomeResult } from '../engine/check/check';
-import { ValidityReport } from '../engine/validity/validityReport';
-import { ValidityResult } from '../engine/validity/validityTest';
+import { CheckResult, EstimateSummary, OutcomeResult, ValidityReport, ValidityResult } from '../engine';
 import { interval, num, padLeft, padRight, pval, wrap } from './format';
 
 const COLS = [28, 12, 11, 26, 26, 9];
@@ -193,12 +191,21 @@ export function readable(file: string, r: CheckResult): string {
   out.push(header());
   out.push(row('Take-up jump (first stage)', r.takeup));
   for (const o of r.outcomes) {
-    out.push(`${o.name}${o.rows.dropped > r.rows.dropped ? `  (${o.rows.used} rows used)` : ''}`);
+    out.push(`${o.name}  (${o.rows.used} rows with a score, treatment and ${o.name})`);
+    out.push(row('  take-up jump, these rows', o.takeup));
     out.push(row('  jump at the cutoff', o.jump));
     out.push(row('  effect for compliers', o.effect));
   }
   out.push('');
   out.push('p: two-sided, robust bias-corrected. Jumps are eligible side minus the other side.');
+  out.push(
+    wrap(
+      `The first-stage take-up uses the ${r.takeup_rows.used} rows with a score and treatment; each outcome's effect is its jump ` +
+        'divided by the take-up jump on its own rows.',
+      96,
+      '',
+    ),
+  );
   out.push('');
   out.push(
     `Do the data contradict the design? Outcome–treatment test (Arai et al. 2022) at bandwidth ${num(r.test_bandwidth.value)} ` +

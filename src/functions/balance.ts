@@ -6,7 +6,7 @@
  *
  * @example =CUTLINE.BALANCE(C2:C6001, G2:G6001, 60)
  */
-import { covariateBalance } from '../engine/index';
+import { covariateBalance } from '../engine';
 import { cellOf, guarded, Matrix, single } from './call';
 import { commonRows, table } from './detail';
 import { excelError } from './excelError';

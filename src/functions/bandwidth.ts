@@ -7,7 +7,7 @@
  *
  * @example =CUTLINE.BANDWIDTH(C2:C6001, E2:E6001, 60, D2:D6001)
  */
-import { selectBandwidth } from '../engine/index';
+import { selectBandwidth } from '../engine';
 import { guarded, Matrix, single } from './call';
 import { commonRows, table } from './detail';
 import { prepareCall } from './prepare';

@@ -7,7 +7,7 @@
  *
  * @example =CUTLINE.BINS(C2:C6001, E2:E6001, 60)
  */
-import { binnedMeansAt } from '../engine/index';
+import { binnedMeansAt } from '../engine';
 import { Cell, cellOf, guarded, Matrix } from './call';
 import { commonRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';

@@ -5,7 +5,7 @@
  * result by columns, cutoff and settings, and turn any error into an Excel
  * error value that names the argument and the first bad cell.
  */
-import { EstimateOptions, ValidityOptions } from '../engine/index';
+import { EstimateOptions, ValidityOptions } from '../engine';
 import { RangeColumn, rangeColumns, RangeInputError } from '../input/range';
 import { readSettings, Settings } from '../input/settings';
 import { BoundedCache, hashCells, hashColumn } from './cache';
@@ -117,7 +117,8 @@ export function engineOptions(bandwidth: number | undefined, s: Settings, missin
     grid: s.grid,
     trim: s.trim,
     multiplier: s.multiplier,
-    sensitivity: s.sensitivity,
+    // The by-bandwidth table only when asked for: each multiple is a whole test more.
+    sensitivity: s.sensitivity ?? [],
     trendGuard: s.trendGuard === undefined ? undefined : s.trendGuard === 'on',
     missing,
   };

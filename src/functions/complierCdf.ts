@@ -6,7 +6,7 @@
  *
  * @example =CUTLINE.COMPLIERCDF(C2:C6001, D2:D6001, E2:E6001, 60, J2:J26, 1)
  */
-import { complierCdfAt } from '../engine/index';
+import { complierCdfAt } from '../engine';
 import { guarded, Matrix } from './call';
 import { armArgument, atArgument, curveMatrix } from './complierCurve';
 import { prepareCall, ranges } from './prepare';

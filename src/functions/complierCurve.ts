@@ -3,7 +3,7 @@
  * and the spilled layout (one value per `at`, in the shape of `at`; with
  * detail, a table of at/value pairs and the summary rows).
  */
-import { ComplierCurveResult } from '../engine/index';
+import { ComplierCurveResult } from '../engine';
 import { rangeNumbers, RangeInputError } from '../input/range';
 import { Cell, cellOf, InvocationLike, Matrix } from './call';
 import { commonRows, table } from './detail';

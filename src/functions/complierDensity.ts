@@ -6,7 +6,7 @@
  *
  * @example =CUTLINE.COMPLIERDENSITY(C2:C6001, D2:D6001, E2:E6001, 60, J2:J26, 0)
  */
-import { complierDensityAt } from '../engine/index';
+import { complierDensityAt } from '../engine';
 import { guarded, Matrix } from './call';
 import { armArgument, atArgument, curveMatrix } from './complierCurve';
 import { prepareCall, ranges } from './prepare';

@@ -7,7 +7,7 @@
  *
  * @example =CUTLINE.DENSITYTEST(C2:C6001, 60)
  */
-import { densityTest } from '../engine/index';
+import { densityTest } from '../engine';
 import { cellOf, guarded, Matrix, single } from './call';
 import { commonRows, table } from './detail';
 import { excelError } from './excelError';

@@ -3,7 +3,7 @@
  * Cutline's summary (estimate, standard error, both intervals, p-value,
  * bandwidth, window counts, rows used and dropped, one row per warning).
  */
-import { Estimate } from '../engine/index';
+import { Estimate } from '../engine';
 import { Cell, cellOf, Matrix } from './call';
 
 export type Row = [string, Cell];

@@ -7,7 +7,7 @@
  *
  * @example =CUTLINE.EFFECT(C2:C6001, D2:D6001, E2:E6001, 60)
  */
-import { complierEffect } from '../engine/index';
+import { complierEffect } from '../engine';
 import { cellOf, guarded, Matrix, single } from './call';
 import { commonRows, estimateRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';

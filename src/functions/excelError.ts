@@ -6,7 +6,7 @@
  * give (a side of the cutoff without units, a constant column); `#NUM!` for
  * a result that is not a finite number (Excel shows no message with it).
  */
-import { CutlineError } from '../engine/index';
+import { CutlineError } from '../engine';
 import { RangeInputError } from '../input/range';
 
 export type ExcelErrorCode = '#VALUE!' | '#N/A' | '#NUM!';
@@ -29,6 +29,8 @@ const ARGUMENT_CODES = new Set(['bad-value', 'length', 'option']);
 
 /** Any error thrown while a function ran, as the Excel error it returns. */
 export function toExcelError(fn: string, e: unknown): CustomFunctions.Error {
+  // Already an Excel error (a function said why it has no number): as it is.
+  if (e instanceof CustomFunctions.Error) return e;
   if (e instanceof RangeInputError) return excelError('#VALUE!', `CUTLINE.${fn}: ${e.message}`);
   if (e instanceof CutlineError) {
     const code = (e as CutlineError & { code?: string }).code;

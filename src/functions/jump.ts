@@ -5,7 +5,7 @@
  *
  * @example =CUTLINE.JUMP(C2:C6001, E2:E6001, 60)
  */
-import { outcomeJump } from '../engine/index';
+import { outcomeJump } from '../engine';
 import { guarded, Matrix, single } from './call';
 import { commonRows, estimateRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';

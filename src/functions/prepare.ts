@@ -3,8 +3,8 @@
  * checked columns), the cutoff, the optional bandwidth, the settings block
  * and the detail flag; and the key its result is remembered under.
  */
-import { ValidityOptions } from '../engine/index';
-import { CutlineError } from '../engine/index';
+import { ValidityOptions } from '../engine';
+import { CutlineError } from '../engine';
 import { dataCellPlace, RangeColumn, RangeInputError } from '../input/range';
 import { Settings } from '../input/settings';
 import {

@@ -4,7 +4,7 @@
  *
  * @example =CUTLINE.TAKEUP(C2:C6001, D2:D6001, 60)
  */
-import { takeupJump } from '../engine/index';
+import { takeupJump } from '../engine';
 import { guarded, Matrix, single } from './call';
 import { commonRows, estimateRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';

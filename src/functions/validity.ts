@@ -13,7 +13,7 @@
  *
  * @example =CUTLINE.VALIDITY(C2:C6001, D2:D6001, E2:E6001, 60)
  */
-import { validity as validityTest } from '../engine/index';
+import { validity as validityTest } from '../engine';
 import { cellOf, guarded, InvocationLike, isRemembered, Matrix, single } from './call';
 import { excelError, toExcelError } from './excelError';
 import { commonRows, Row, table } from './detail';
@@ -21,6 +21,8 @@ import { PreparedCall, prepareCall, ranges } from './prepare';
 
 function present(c: PreparedCall): Matrix {
   const r = c.result(() => validityTest(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, c.opts));
+  // A sharp design: take-up does not vary on a side, so there is nothing to test.
+  if (!r.applicable) throw excelError('#N/A', `CUTLINE.VALIDITY: the test does not apply: ${r.reason}`);
   if (!c.detail) return single('VALIDITY', r.pvalue);
   const o = r.observed;
   const arm = o.worst.arm === 1 ? 'treated' : 'untreated';
@@ -45,7 +47,7 @@ function present(c: PreparedCall): Matrix {
     if (b.multiple === 1) continue;
     rows.push([`p-value at ${b.multiple} × bandwidth`, b.pvalue !== undefined ? cellOf(b.pvalue) : (b.error ?? b.reason ?? 'not computed')]);
   }
-  return table([...rows, ['eligible side', r.eligible], ...commonRows(r)]);
+  return table([...rows, ...commonRows(r)]);
 }
 
 /**

@@ -3,7 +3,7 @@
  * §1). Each error names the column (and the option that asked for it) and the
  * first offending row; missing values become a mask, never a silent NaN.
  */
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 import { cellLabel, cellNumber, decimalCommaHint, showCell, trimBlank } from './cells';
 import { Table } from './table';
 
@@ -123,4 +123,3 @@ export function labelColumn(table: Table, name: string, role: ColumnRole): Label
   return { name: table.header[c], codes, labels, missing };
 }
 
-export { completeRows, compact } from '../engine/data/listwise';

@@ -19,7 +19,7 @@
  * as missing, and counted); blank lines at the end are ignored.
  */
 import Papa from 'papaparse';
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 import { trimBlank } from './cells';
 import { decimalOrNaN, fastNumber, isBlank } from './fastNumber';
 import { Table } from './table';

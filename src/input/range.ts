@@ -25,7 +25,7 @@
  *   ]);
  *   score.values; // Float64Array [57.5, 60, 0]; score.missing: [0, 0, 1]
  */
-import { CutlineError } from '../engine/index';
+import { CutlineError } from '../engine';
 import { cellNumber, showCell } from './cells';
 import { Cell } from './table';
 

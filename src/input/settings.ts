@@ -9,7 +9,7 @@
  *   readSettings([['kernel', 'uniform'], ['draws', 1999], ['', '']], 'settings')
  *   // { kernel: 'uniform', draws: 1999 }
  */
-import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine/index';
+import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine';
 import { cellNumber, showCell } from './cells';
 import { errorCode, offsetAddress, RangeInputError } from './range';
 import { Cell } from './table';

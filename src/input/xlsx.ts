@@ -7,7 +7,7 @@
  * the other cells of the range are blank, as Excel treats them.
  */
 import type ExcelJS from 'exceljs';
-import { CutlineError } from '../engine/errors';
+import { CutlineError } from '../engine';
 import { Cell, Table, tableFromRows } from './table';
 
 function plain(v: ExcelJS.CellValue): Cell {

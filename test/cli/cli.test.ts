@@ -84,7 +84,7 @@ describe('cutline check', () => {
   });
 
   test('shuffling the rows of a file with tied scores leaves the results unchanged', () => {
-    // Rounded scores (many ties): nn residuals, Canay–Kamat ties and the validity test must not see the row order.
+    // Rounded scores (many ties): nearest-neighbour residuals, Canay–Kamat ties and the validity test must not see the row order.
     const lines = design().trim().split('\n');
     const head = lines[0];
     const body = lines.slice(1).map((l) => {
@@ -182,7 +182,7 @@ describe('cutline check', () => {
     ['trim negative', () => [...base(good), '--trim', '-0.1'], /--trim must be at least 0, got -0.1/],
     ['bad sensitivity', () => [...base(good), '--sensitivity', '0.5,x'], /--sensitivity must be positive multiples separated by commas, or off; got "x"/],
     ['bad multiplier', () => [...base(good), '--multiplier', 'uniform'], /--multiplier must be one of normal, rademacher/],
-    ['donut empties a side', () => [...base(good), '--donut', '5'], /--donut 5 leaves no unit below the cutoff/],
+    ['donut empties a side', () => [...base(good), '--donut', '5'], /--donut: the donut 5 leaves no unit below the cutoff/],
     ['bin wider than the range', () => [...base(good), '--density-bin', '50'], /McCrary's density test could not be computed: .*bin/],
     ['bins without json', () => [...base(good), '--bins'], /--bins adds the binned tables to the JSON document/],
     ['constant outcome', () => base(write('consty.csv', design().replace(/^(-?[\d.]+,\d),[^,\n]*/gm, '$1,5'))), /outcome|constant|one value/],

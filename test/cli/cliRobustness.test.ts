@@ -128,7 +128,7 @@ describe('options', () => {
     ['density-bandwidth', '1e300', /density bandwidth 1e\+300 is wider than the largest distance of a score from the cutoff \(0\.9975\)/],
     ['donut', '0', /--donut must be positive/],
     ['donut', '-2', /--donut must be positive/],
-    ['donut', '1e300', /--donut 1e\+300 leaves no unit below the cutoff/],
+    ['donut', '1e300', /--donut: the donut 1e\+300 leaves no unit below the cutoff/],
   ];
   test.each(outOfRange)('--%s %s is refused with a clear message', (name, value, message) => {
     const base = name === 'draws' ? opts().slice(0, -2) : opts();
@@ -137,7 +137,7 @@ describe('options', () => {
 
   test('a huge typed bandwidth is refused by name, not blamed on too few distinct scores', () => {
     for (const v of ['1e300', '1e6', '1000']) {
-      expectRefused(run([good, ...opts('--bandwidth', v)]), /^cutline: bandwidth \S+ is more than 10 times the largest distance of a score from the cutoff \(0\.9975\)/);
+      expectRefused(run([good, ...opts('--bandwidth', v)]), /^cutline: --bandwidth: the bandwidth \S+ is more than 10 times the largest distance of a score from the cutoff \(0\.9975\)/);
     }
     // Up to that limit every unit is in the window and the numbers stay finite.
     const j = expectJson(run([good, ...opts('--bandwidth', '9', '--json')]));

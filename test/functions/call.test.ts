@@ -4,7 +4,7 @@
 // remembered by key; arguments are checked by name.
 import { hashCells } from '../../src/functions/cache';
 import { bandwidthArgument, cacheSizes, flagArgument, forgetAll, numberArgument, rangesKey, readRanges, remembered } from '../../src/functions/call';
-import { CutlineError } from '../../src/engine/index';
+import { CutlineError } from '../../src/engine';
 import { prepareCall } from '../../src/functions/prepare';
 import { RangeInputError } from '../../src/input/range';
 

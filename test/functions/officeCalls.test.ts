@@ -6,7 +6,7 @@
 import * as fs from 'fs';
 import * as path from 'path';
 import { OfficeMockObject } from 'office-addin-mock';
-import { CutlineError } from '../../src/engine/index';
+import { CutlineError } from '../../src/engine';
 import { excelError, toExcelError } from '../../src/functions/excelError';
 import { single } from '../../src/functions/call';
 import { RangeInputError } from '../../src/input/range';
@@ -55,6 +55,8 @@ test('which error for which problem', () => {
   const bug = e(new TypeError('x is undefined'));
   expect(bug.code).toBe('#N/A');
   expect(bug.message).toBe('CUTLINE.EFFECT could not compute this (x is undefined); please report it with the data that cause it');
+  const own = excelError('#N/A', 'CUTLINE.VALIDITY: the test does not apply: …');
+  expect(toExcelError('VALIDITY', own)).toBe(own);
   expect(() => single('EFFECT', Infinity)).toThrow(MockExcelError);
   expect(single('EFFECT', 2.5)).toEqual([[2.5]]);
 });

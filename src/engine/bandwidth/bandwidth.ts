@@ -7,8 +7,9 @@
 import { bandwidthIk } from './bandwidthIk';
 import { bandwidthMse } from './bandwidthMse';
 import { CutlineError } from '../errors';
-import { KernelName } from '../fit/kernels';
+import { KernelName } from '../fit';
 import { widenForTies } from './bandwidthTies';
+import { formatNumber } from '../numeric';
 
 export type BandwidthRule = 'mse' | 'ik' | 'cer';
 export const BANDWIDTH_RULES: readonly BandwidthRule[] = ['mse', 'ik', 'cer'];
@@ -65,7 +66,7 @@ export function chooseBandwidth(
 ): BandwidthChoice {
   if (options.typed !== undefined) {
     if (!(options.typed > 0) || !Number.isFinite(options.typed)) {
-      throw new CutlineError(`bandwidth must be a positive number, got ${options.typed}`);
+      throw new CutlineError(`the bandwidth must be a positive number, got ${options.typed}`, { code: 'option', argument: 'bandwidth' });
     }
     // Far beyond the data the kernel weights are flat and the fits' normal equations lose
     // their precision (they are scaled by h), so a huge typed bandwidth is refused by name.
@@ -73,8 +74,9 @@ export function chooseBandwidth(
     for (let i = 0; i < score.length; i++) reach = Math.max(reach, Math.abs(score[i] - cutoff));
     if (options.typed > MAX_BANDWIDTH_REACH * reach) {
       throw new CutlineError(
-        `bandwidth ${options.typed} is more than ${MAX_BANDWIDTH_REACH} times the largest distance of a score from the cutoff ` +
-          `(${Number(reach.toPrecision(6))}); a bandwidth just above that distance already puts every unit in the window`,
+        `the bandwidth ${options.typed} is more than ${MAX_BANDWIDTH_REACH} times the largest distance of a score from the cutoff ` +
+          `(${formatNumber(reach, 6)}); a bandwidth just above that distance already puts every unit in the window`,
+        { code: 'option', argument: 'bandwidth' },
       );
     }
     return { value: options.typed, rule: 'typed', warnings: [] };
@@ -94,17 +96,15 @@ export function chooseBandwidth(
         onSafeScale(score, values, cutoff, (r, v, c) => bandwidthMse(r, v, c, kernel, treated).bandwidth) * Math.pow(score.length, -1 / 20);
       break;
     default:
-      throw new CutlineError(`bandwidth rule must be one of mse, ik, cer; got "${String(rule)}"`);
+      throw new CutlineError(`the bandwidth rule must be one of mse, ik, cer; got "${String(rule)}"`, { code: 'option', argument: 'rule' });
   }
   // The estimates' bias correction fits a quadratic on each side: it needs 3 distinct scores there.
   const w = widenForTies(score, cutoff, value, 3);
   const warnings = w.widened
     ? [
-        `the ${rule} bandwidth ${fmt(value)} holds fewer than 3 distinct scores on a side (mass points); ` +
-          `it was widened to ${fmt(w.bandwidth)} so that the local fits can be computed`,
+        `the ${rule} bandwidth ${formatNumber(value)} holds fewer than 3 distinct scores on a side (mass points); ` +
+          `it was widened to ${formatNumber(w.bandwidth)} so that the local fits can be computed`,
       ]
     : [];
   return { value: w.bandwidth, rule, warnings };
 }
-
-const fmt = (v: number): string => Number(v.toPrecision(4)).toString();

@@ -11,8 +11,8 @@
  * For the triangular kernel, ν = 0, p = 1 this gives 3.4375, the C_K of
  * Imbens & Kalyanaraman (2012) (checked in test/bandwidthConstants.test.ts).
  */
-import { KernelName, kernelMoment } from '../fit/kernels';
-import { invertSmall } from '../numeric/linalg';
+import { KernelName, kernelMoment } from '../fit';
+import { invertSmall } from '../numeric';
 
 export interface KernelConstants {
   bias: number;

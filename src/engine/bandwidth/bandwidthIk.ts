@@ -21,11 +21,9 @@
  */
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, olsCoefficients, pilotCovariance, pilotVariance, Pilots, pilotWindow, thirdDerivative } from './bandwidthPilots';
-import { boundaryWindow } from '../fit/boundaryWindow';
+import { boundaryWindow, KernelName, smoothJump } from '../fit';
 import { widenForTies } from './bandwidthTies';
 import { CutlineError } from '../errors';
-import { KernelName } from '../fit/kernels';
-import { smoothJump } from '../fit/smoothJump';
 
 export interface IkSide {
   sigma2: number;

@@ -24,13 +24,10 @@
  */
 import { boundaryConstants } from './bandwidthConstants';
 import { medianBand, pilotVariance, pilotWindow, thirdDerivative } from './bandwidthPilots';
-import { boundaryWindow, curvatureWeights, SortedSide, sortedOrder } from '../fit/boundaryWindow';
+import { boundaryWindow, curvatureWeights, SortedSide, varianceOf, KernelName, gathered, neighbourResiduals, ratioPsi, smoothJump } from '../fit';
+import { sortedOrder } from '../data';
 import { widenForTies } from './bandwidthTies';
 import { CutlineError } from '../errors';
-import { varianceOf } from '../fit/influence';
-import { KernelName } from '../fit/kernels';
-import { gathered, nnResiduals } from '../fit/residuals';
-import { ratioPsi, smoothJump } from '../fit/smoothJump';
 
 export interface MseBandwidth {
   bandwidth: number;
@@ -48,7 +45,7 @@ function sideRange(score: ArrayLike<number>, cutoff: number, above: boolean): nu
 
 /**
  * One side's curvature pieces: m̂'' = Σ 2q₂V for V = Y (and D), and the sums
- * of products of the influence terms 2q₂e (nn residuals e) that the
+ * of products of the influence terms 2q₂e (nearest-neighbour residuals e) that the
  * regularisation needs — Σψ_Y², Σψ_Yψ_D, Σψ_D² — without storing ψ.
  */
 function sideCurvature(
@@ -57,7 +54,7 @@ function sideCurvature(
   d?: ArrayLike<number>,
 ): { m2y: number; m2d: number; yy: number; yd: number; dd: number } {
   const q2 = side.q2;
-  const ey = nnResiduals(side, y);
+  const ey = neighbourResiduals(side, y);
   const vy = gathered(side, y);
   let m2y = 0;
   let yy = 0;
@@ -67,7 +64,7 @@ function sideCurvature(
     yy += w * w * ey[t] * ey[t];
   }
   if (!d) return { m2y, m2d: 0, yy, yd: 0, dd: 0 };
-  const ed = nnResiduals(side, d);
+  const ed = neighbourResiduals(side, d);
   const vd = gathered(side, d);
   let m2d = 0;
   let yd = 0;
@@ -91,8 +88,8 @@ export function bandwidthMse(
 ): MseBandwidth {
   const p = pilotWindow(score, cutoff);
   const pilotWin = boundaryWindow(score, cutoff, widenForTies(score, cutoff, p.h1, 2).bandwidth, kernel, { quadratic: false });
-  const y = smoothJump(pilotWin, values, 'nn');
-  const d = treated ? smoothJump(pilotWin, treated, 'nn') : null;
+  const y = smoothJump(pilotWin, values, 'neighbours');
+  const d = treated ? smoothJump(pilotWin, treated, 'neighbours') : null;
   const psiPilot = d ? ratioPsi(y.psi, d.psi, y.estimate, d.estimate) : y.psi;
   const A = p.h1 * varianceOf(psiPilot);
 

@@ -10,11 +10,9 @@
  *   squares fit of V on (1, 1{R ≥ c}, x, x², x³) among the units whose score
  *   lies between the median score below and the median score above the cutoff.
  */
-import { rememberedAt } from '../data/memo';
+import { rememberedOn, lowerBound, orderView, sortedOrder, valuesAt } from '../data';
 import { CutlineError } from '../errors';
-import { sampleCovariance, sampleVariance } from '../numeric/describe';
-import { lowerBound, sortedOrder, valuesAt } from '../fit/boundaryWindow';
-import { invertSmall } from '../numeric/linalg';
+import { sampleCovariance, sampleVariance, invertSmall } from '../numeric';
 
 export interface Pilots {
   n: number;
@@ -28,10 +26,8 @@ export interface Pilots {
 
 // Pilots depend on the scores and the cutoff only; both bandwidth rules of a
 // check (the estimates' and the validity test's) use the same ones.
-const pilotCache = new WeakMap<object, Map<number, Pilots>>();
-
 export function pilotWindow(score: ArrayLike<number>, cutoff: number): Pilots {
-  return rememberedAt(pilotCache, score as object, cutoff, () => computePilots(score, cutoff));
+  return rememberedOn(score, `pilots|${cutoff}`, () => computePilots(score, cutoff));
 }
 
 function computePilots(score: ArrayLike<number>, cutoff: number): Pilots {
@@ -116,10 +112,8 @@ export function olsCoefficients(
 }
 
 /** Units between the median score below and the median score above the cutoff (a slice of the sorted order). */
-const bandCache = new WeakMap<object, Map<number, Int32Array>>();
-
 export function medianBand(score: ArrayLike<number>, cutoff: number): Int32Array {
-  return rememberedAt(bandCache, score as object, cutoff, () => computeMedianBand(score, cutoff));
+  return rememberedOn(score, `band|${cutoff}`, () => computeMedianBand(score, cutoff));
 }
 
 function computeMedianBand(score: ArrayLike<number>, cutoff: number): Int32Array {
@@ -134,18 +128,13 @@ function computeMedianBand(score: ArrayLike<number>, cutoff: number): Int32Array
   return order.subarray(lowerBound(score, order, mLo, false), lowerBound(score, order, mHi, true));
 }
 
-// X'X of the step cubic depends on the scores alone: computed once per band
-// and reused for every column whose third derivative is asked for.
-const cubicCache = new WeakMap<Int32Array, { scale: number; cutoff: number; inv: number[][] | null }>();
-
-/** Third derivative m̂₃ of V at the cutoff from the global cubic with a step. */
-export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<number>, cutoff: number, band: Int32Array, scale: number): number {
+/** (X'X)⁻¹ of the step cubic on the band: the scores alone (a score handle keeps it for every column of a check). */
+function cubicInverse(score: ArrayLike<number>, cutoff: number, band: Int32Array, scale: number): number[][] | null {
   // Regressors (1, 1{R ≥ c}, u, u², u³) with u = x/scale for conditioning; the cubic coefficient is rescaled back.
-  let xtx = cubicCache.get(band);
-  if (!xtx || xtx.scale !== scale || xtx.cutoff !== cutoff) {
+  return rememberedOn(score, `cubic|${cutoff}|${scale}|${band.byteOffset}|${band.length}`, () => {
     const m = new Float64Array(7); // Σ u^k, k = 0..6
     const ms = new Float64Array(4); // Σ_{R ≥ c} u^k, k = 0..3
-    const r = valuesAt(band, score);
+    const r = valuesAt(band, score, orderView(score, band));
     for (let t = 0; t < band.length; t++) {
       const u = (r[t] - cutoff) / scale;
       const u2 = u * u;
@@ -171,13 +160,19 @@ export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<numb
       [m[2], ms[2], m[3], m[4], m[5]],
       [m[3], ms[3], m[4], m[5], m[6]],
     ];
-    xtx = { scale, cutoff, inv: invertSmall(a) };
-    cubicCache.set(band, xtx);
-  }
-  if (!xtx.inv) throw new CutlineError('the score takes too few distinct values between the medians of the two sides for the bandwidth rule to measure the curvature of the data (a cubic needs 4); give a bandwidth');
+    return invertSmall(a);
+  });
+}
+
+/** Third derivative m̂₃ of V at the cutoff from the global cubic with a step. */
+export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<number>, cutoff: number, band: Int32Array, scale: number): number {
+  // Regressors (1, 1{R ≥ c}, u, u², u³) with u = x/scale for conditioning; the cubic coefficient is rescaled back.
+  const inv = cubicInverse(score, cutoff, band, scale);
+  if (!inv) throw new CutlineError('the score takes too few distinct values between the medians of the two sides for the bandwidth rule to measure the curvature of the data (a cubic needs 4); give a bandwidth');
   const xty = [0, 0, 0, 0, 0];
-  const r = valuesAt(band, score);
-  const vs = valuesAt(band, values);
+  const view = orderView(score, band);
+  const r = valuesAt(band, score, view);
+  const vs = valuesAt(band, values, view);
   for (let t = 0; t < band.length; t++) {
     const u = (r[t] - cutoff) / scale;
     const v = vs[t];
@@ -189,7 +184,7 @@ export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<numb
     xty[4] += u * u * uv;
   }
   let b4 = 0;
-  for (let k = 0; k < 5; k++) b4 += xtx.inv[4][k] * xty[k];
+  for (let k = 0; k < 5; k++) b4 += inv[4][k] * xty[k];
   return (6 * b4) / (scale * scale * scale);
 }
 

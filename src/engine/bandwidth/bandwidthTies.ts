@@ -1,5 +1,5 @@
 /**
- * A rule's bandwidth on a score with mass points (test scores, ages in
+ * A rule's bandwidth on a score with repeated values (mass points) (test scores, ages in
  * years) can leave fewer distinct scores on a side than a fit needs. Cutline's
  * choice: widen it to 1.25 × the distance of the `need`-th nearest distinct
  * score on the side that needs it most (so that score still gets weight), and
@@ -7,18 +7,12 @@
  *
  * @example widenForTies(intScores, 0, 1.6, 3) // { bandwidth: 3.75, widened: true }
  */
-import { sortedOrder } from '../fit/boundaryWindow';
+import { lowerBound, sortedOrder } from '../data';
 
 /** Distance from the cutoff of the `need`-th nearest distinct score on each side (Infinity when the side has fewer). */
 function nthDistinctDistance(score: ArrayLike<number>, cutoff: number, need: number): { below: number; above: number } {
   const order = sortedOrder(score);
-  let lo = 0;
-  let hi = order.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (score[order[mid]] < cutoff) lo = mid + 1;
-    else hi = mid;
-  }
+  const lo = lowerBound(score, order, cutoff, false);
   const walk = (start: number, step: number, inside: (t: number) => boolean): number => {
     let count = 0;
     let prev = NaN;

@@ -15,19 +15,14 @@
  * p-values and `permutation_pvalue_holm` the permutation p-values; a test that
  * cannot be computed on these data is left out with a warning saying why.
  */
-import { BandwidthRule, chooseBandwidth } from '../bandwidth/bandwidth';
-import { binnedMeans, BinnedMeansResult } from '../plots/binnedMeans';
-import { boundaryWindow } from '../fit/boundaryWindow';
-import { permutationBalanceTest } from '../covariates/covariatePermutation';
-import { localPolynomialDensityTest, LocalPolynomialDensityResult } from '../density/densityLocalPolynomial';
-import { mccraryTest, McCraryResult } from '../density/densityMcCrary';
+import { BandwidthRule, chooseBandwidth } from '../bandwidth';
+import { binnedMeans, BinnedMeansResult, fitLine, FitLineSide } from '../plots';
+import { boundaryWindow, jumpAt, KernelName, VarianceName } from '../fit';
+import { permutationBalanceTest } from '../covariates';
+import { localPolynomialDensityTest, LocalPolynomialDensityResult, mccraryTest, McCraryResult } from '../density';
 import { CutlineError } from '../errors';
-import { distinctScoreWarning, windowDistinctScores } from '../data/massPoints';
-import { fitLine, FitLineSide } from '../plots/fitLine';
-import { holmAdjust } from '../numeric/holm';
-import { jumpAt } from '../fit/jumpAt';
-import { KernelName } from '../fit/kernels';
-import { VarianceName } from '../fit/residuals';
+import { holmAdjust } from '../numeric';
+import { distinctScoreWarning, windowDistinctScores } from '../data';
 
 export const DENSITY_CAUTION =
   'A jump in the density of the score is evidence of sorting around the cutoff, not proof of an invalid design (sorting unrelated to outcomes leaves the estimand intact); a smooth density is no proof of validity.';
@@ -72,8 +67,8 @@ export function densitySection(
     m = mccraryTest(score, cutoff, { bin: opts.bin, bandwidth: opts.bandwidth, sign: opts.sign });
   } catch (e) {
     if (!(e instanceof CutlineError)) throw e;
-    // With the user's own --density-bin/--density-bandwidth a failure is bad input, not a data finding.
-    if (given) throw new CutlineError(`--density-bin/--density-bandwidth: McCrary's density test could not be computed: ${e.message}`);
+    // With the caller's own bin or bandwidth a failure is bad input, not a data finding.
+    if (given) throw new CutlineError(`McCrary's density test could not be computed: ${e.message}`, { code: e.code, argument: 'density' });
     warnings.push(`McCrary's density test could not be computed: ${e.message}`);
   }
   const lp = attempt('The local polynomial density test', warnings, () => localPolynomialDensityTest(score, cutoff, { sign: opts.sign }));
@@ -83,7 +78,7 @@ export function densitySection(
     if (!warnings.includes(w) && !(few(w) && warnings.some(few))) warnings.push(w);
   }
   if (!lp && !m) return undefined;
-  // Each test judged on its own window (massPoints.ts): a heaped or discrete score there makes it unreliable.
+  // Each test judged on its own window (data/repeatedScores.ts): a heaped or discrete score there makes it unreliable.
   const massy = (h: number): string | null => distinctScoreWarning(windowDistinctScores(score, cutoff, h), 'the density tests');
   const lpMass = lp ? massy(lp.bandwidth) : null;
   const mMass = m ? massy(m.bandwidth) : null;

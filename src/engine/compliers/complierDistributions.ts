@@ -23,10 +23,9 @@
  * @example
  *   complierCdf(score, treated, bill, 60, [400, 500, 600], 1, { bandwidth: 8, kernel: 'triangular' }).cdf
  */
-import { SideFit, Window, applyWeights, boundaryWindow } from '../fit/boundaryWindow';
+import { SideFit, Window, applyWeights, boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
-import { KernelName } from '../fit/kernels';
-import { gathered } from '../fit/residuals';
+import { formatNumber, searchSorted } from '../numeric';
 
 export interface ComplierOptions {
   bandwidth: number;
@@ -43,9 +42,8 @@ interface Prepared {
 }
 
 // The CDFs, densities and means of one check use the same window, columns and
-// sign: the checked window is remembered per (window side, treated, outcome).
-const preparedCache = new WeakMap<SideFit, WeakMap<object, WeakMap<object, Prepared>>>();
-
+// sign: the checked window is remembered by the window's side (per treated and
+// outcome column), so it lives as long as the window.
 function prepare(
   score: ArrayLike<number>,
   treated: ArrayLike<number>,
@@ -57,17 +55,13 @@ function prepare(
   if (treated.length !== score.length || outcome.length !== score.length)
     throw new CutlineError(`score, treated and outcome must have the same length (${score.length}, ${treated.length}, ${outcome.length})`);
   const win = boundaryWindow(score, cutoff, opts.bandwidth, opts.kernel, { quadratic: false });
-  let byTreated = preparedCache.get(win.above);
-  if (!byTreated) {
-    byTreated = new WeakMap();
-    preparedCache.set(win.above, byTreated);
-  }
+  const byTreated = win.above.memo.compliers;
   let byOutcome = byTreated.get(treated as object);
   if (!byOutcome) {
     byOutcome = new WeakMap();
     byTreated.set(treated as object, byOutcome);
   }
-  const hit = byOutcome.get(outcome as object);
+  const hit = byOutcome.get(outcome as object) as Prepared | undefined;
   if (hit && hit.sign === sign && hit.win.below === win.below) return hit;
   const p = checkWindow(win, treated, outcome, opts, sign);
   byOutcome.set(outcome as object, p);
@@ -89,7 +83,7 @@ function checkWindow(win: Window, treated: ArrayLike<number>, outcome: ArrayLike
   const pi = applyWeights(plus.coef1[0], plus.index, treated) - applyWeights(minus.coef1[0], minus.index, treated);
   if (!(pi > 0))
     throw new CutlineError(
-      `the take-up jump is ${Number(pi.toPrecision(4))} at bandwidth ${opts.bandwidth}: take-up does not rise at the cutoff, ` +
+      `the take-up jump is ${formatNumber(pi)} at bandwidth ${opts.bandwidth}: take-up does not rise at the cutoff, ` +
         `so the complier distributions are not defined — check the treated column and the eligibility side`,
     );
   return { win, plus, minus, pi, sign: sign as 1 | -1 };
@@ -152,14 +146,7 @@ export function complierCdf(
     for (let t = 0; t < w.length; t++) {
       if (d[t] !== arm) continue;
       const v = y[t];
-      let lo = 0;
-      let hi = grid.length;
-      while (lo < hi) {
-        const mid = (lo + hi) >> 1;
-        if (grid[mid] < v) lo = mid + 1;
-        else hi = mid;
-      }
-      bucket[lo] += c * w[t];
+      bucket[searchSorted(grid, v, false)] += c * w[t];
     }
   }
   const sortedCdf: number[] = [];

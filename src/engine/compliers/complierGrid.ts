@@ -5,9 +5,8 @@
  * an outcome value each). Cutline's choice: a grid that follows the data, so
  * a decreasing stretch of an implied CDF is seen where the units are.
  */
-import { boundaryWindow } from '../fit/boundaryWindow';
-import { KernelName } from '../fit/kernels';
-import { gathered } from '../fit/residuals';
+import { boundaryWindow, KernelName, gathered } from '../fit';
+import { orderStatistics } from '../numeric';
 
 export const COMPLIER_GRID_POINTS = 25;
 
@@ -19,15 +18,14 @@ export function complierGrid(score: ArrayLike<number>, outcome: ArrayLike<number
     ys.set(gathered(side, outcome), u);
     u += side.index.length;
   }
-  ys.sort();
-  const distinct: number[] = [];
-  for (let t = 0; t < ys.length && distinct.length <= COMPLIER_GRID_POINTS; t++) if (t === 0 || ys[t] !== ys[t - 1]) distinct.push(ys[t]);
-  if (distinct.length <= COMPLIER_GRID_POINTS) return distinct;
+  // At most 25 distinct outcomes (binary, counts, scales): show them all, sorted.
+  const seen = new Set<number>();
+  for (let t = 0; t < ys.length && seen.size <= COMPLIER_GRID_POINTS; t++) seen.add(ys[t]);
+  if (seen.size <= COMPLIER_GRID_POINTS) return [...seen].sort((a, b) => a - b);
+  // Else the type-1 quantiles: order statistics found without sorting the window (numeric/orderStatistics.ts).
+  const ranks = Array.from({ length: COMPLIER_GRID_POINTS }, (_, k) => Math.min(ys.length - 1, Math.ceil(((2 + 4 * k) / 100) * ys.length) - 1));
+  const values = orderStatistics(ys, ranks);
   const out: number[] = [];
-  for (let k = 0; k < COMPLIER_GRID_POINTS; k++) {
-    const p = (2 + 4 * k) / 100;
-    const v = ys[Math.min(ys.length - 1, Math.ceil(p * ys.length) - 1)];
-    if (out.length === 0 || v !== out[out.length - 1]) out.push(v);
-  }
+  for (const v of values) if (out.length === 0 || v !== out[out.length - 1]) out.push(v);
   return out;
 }

@@ -26,8 +26,8 @@
  * @example permutationBalanceTest(score, dwellingAge, 60).pvalue
  */
 import { CutlineError } from '../errors';
-import { Random } from '../numeric/random';
-import { requireBothSides, scoreSummary, ScoreSummary } from '../data/scoreSummary';
+import { Random } from '../numeric';
+import { requireBothSides, scoreSummary, ScoreSummary } from '../data';
 
 export interface PermutationBalanceOptions {
   q?: number;

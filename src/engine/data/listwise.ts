@@ -4,32 +4,13 @@
  */
 
 /** Rows with no missing cell in any of the masks, and how many were dropped. */
-// Whether a mask marks any row, remembered per mask: a check asks for the
-// listwise rows of the same columns many times.
-const anyMissing = new WeakMap<Uint8Array, boolean>();
-
-function marksAny(m: Uint8Array): boolean {
-  let v = anyMissing.get(m);
-  if (v === undefined) {
-    v = m.indexOf(1) >= 0;
-    anyMissing.set(m, v);
-  }
-  return v;
-}
-
-// Rows arrays are read-only for every caller, so one identity array serves all.
-let lastIdentity = new Int32Array(0);
-function identity(n: number): Int32Array {
-  if (lastIdentity.length !== n) {
-    lastIdentity = new Int32Array(n);
-    for (let i = 0; i < n; i++) lastIdentity[i] = i;
-  }
-  return lastIdentity;
-}
-
 export function completeRows(n: number, masks: (Uint8Array | undefined)[]): { rows: Int32Array; dropped: number } {
-  const used = masks.filter((m): m is Uint8Array => m !== undefined && marksAny(m));
-  if (used.length === 0) return { rows: identity(n), dropped: 0 };
+  const used = masks.filter((m): m is Uint8Array => m !== undefined && m.indexOf(1) >= 0);
+  if (used.length === 0) {
+    const all = new Int32Array(n);
+    for (let i = 0; i < n; i++) all[i] = i;
+    return { rows: all, dropped: 0 };
+  }
   const keep = new Int32Array(n);
   let m = 0;
   for (let r = 0; r < n; r++) {

@@ -5,7 +5,7 @@
  * tests, the permutation test and the binned plots; a non-finite score is a
  * CutlineError naming the row (the input layer should have caught it).
  */
-import { rememberedAt } from './memo';
+import { rememberedOn } from './indexedScore';
 import { CutlineError } from '../errors';
 
 export interface ScoreSummary {
@@ -19,12 +19,10 @@ export interface ScoreSummary {
 }
 
 // The density tests and the permutation tests of a check summarise the same
-// scores: remembered per score array and cutoff (whole arrays only).
-const summaryCache = new WeakMap<object, Map<string, ScoreSummary>>();
-
+// scores: a score handle remembers the summary per cutoff (whole arrays only).
 export function scoreSummary(score: ArrayLike<number>, cutoff: number, rows?: Int32Array, what = 'score'): ScoreSummary {
   if (rows) return computeSummary(score, cutoff, rows, what);
-  return rememberedAt(summaryCache, score as object, `${cutoff}|${what}`, () => computeSummary(score, cutoff, undefined, what));
+  return rememberedOn(score, `summary|${cutoff}|${what}`, () => computeSummary(score, cutoff, undefined, what));
 }
 
 function computeSummary(score: ArrayLike<number>, cutoff: number, rows: Int32Array | undefined, what: string): ScoreSummary {

@@ -38,13 +38,10 @@
  * @example localPolynomialDensityTest(score, 60).pvalue
  */
 import { CutlineError } from '../errors';
-import { sortedOrder } from '../fit/boundaryWindow';
+import { sortedOrder, countDistinctSorted, distinctScoreWarning, requireBothSides, scoreSummary, ScoreSummary } from '../data';
+import { firstAtLeast, invertSmall, normalQuantile, twoSidedPvalue, formatNumber } from '../numeric';
 import { histogramHeights, mccraryDefaultBin } from './densityMcCrary';
-import { invertSmall } from '../numeric/linalg';
-import { countDistinctSorted, distinctScoreWarning } from '../data/massPoints';
-import { normalQuantile, twoSidedPvalue } from '../numeric/normal';
-import { fitPolynomial, polyDerivative, polyValue } from '../fit/polyFit';
-import { requireBothSides, scoreSummary, ScoreSummary } from '../data/scoreSummary';
+import { fitPolynomial, polyDerivative, polyValue } from '../fit';
 
 export interface LocalPolynomialDensityOptions {
   bandwidth?: number;
@@ -71,9 +68,6 @@ export interface LocalPolynomialDensityResult {
   warnings: string[];
 }
 
-function fmt(v: number): string {
-  return Number(v.toPrecision(6)).toString();
-}
 
 /** ∫₀¹ (1 − u) u^j du. */
 function mu(j: number): number {
@@ -209,16 +203,8 @@ function comboVariance(up: SideFitResult, lo: SideFitResult, a: number, b: numbe
 /** x = R − c of the window's units on each side, ascending, read off the shared sorted order. */
 function windowFromOrder(score: ArrayLike<number>, cutoff: number, h: number): { xa: Float64Array; xb: Float64Array } {
   const order = sortedOrder(score);
-  const first = (pred: (x: number) => boolean): number => {
-    let lo = 0;
-    let hi = order.length;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (pred(score[order[mid]] - cutoff)) hi = mid;
-      else lo = mid + 1;
-    }
-    return lo;
-  };
+  // First position where pred holds (pred is monotone along the order).
+  const first = (pred: (x: number) => boolean): number => firstAtLeast((t) => (pred(score[order[t]] - cutoff) ? 1 : 0), 0, order.length, 1, false);
   const b0 = first((x) => x > -h);
   const c0 = first((x) => x >= 0);
   const a1 = first((x) => x >= 0 && !(x < h));
@@ -290,7 +276,7 @@ export function localPolynomialDensityTest(
   for (const side of ['below', 'above'] as const) {
     if (distinct[side] < 5) {
       throw new CutlineError(
-        `the density bandwidth ${fmt(h)} holds ${win[side].x.length} units with ${distinct[side]} distinct scores ${side} the cutoff; ` +
+        `the density bandwidth ${formatNumber(h, 6)} holds ${win[side].x.length} units with ${distinct[side]} distinct scores ${side} the cutoff; ` +
           `the local polynomial density test needs at least 5 distinct scores on each side — widen the bandwidth`,
       );
     }
@@ -299,7 +285,7 @@ export function localPolynomialDensityTest(
   const lo2 = fitSide(win.below, h, 2, 'below');
   for (const [v, side] of [[lo2.f, 'below'], [up2.f, 'above']] as const) {
     if (!(v > 0)) {
-      throw new CutlineError(`the local polynomial density estimate ${side} the cutoff is not positive (${fmt(v)}); widen the density bandwidth`);
+      throw new CutlineError(`the local polynomial density estimate ${side} the cutoff is not positive (${formatNumber(v, 6)}); widen the density bandwidth`);
     }
   }
   const up3 = fitSide(win.above, h, 3, 'above');

@@ -23,16 +23,15 @@
  * Errors: a bin wider than the score range, a side without units, fewer than
  * 6 bins on a side for the rule of thumb, fewer than 3 bins on a side within
  * the bandwidth, a non-positive density estimate. Warnings: a discrete or
- * heaped score near the cutoff (massPoints.ts), fewer than 30 units in a
+ * heaped score near the cutoff (data/repeatedScores.ts), fewer than 30 units in a
  * side's window.
  *
  * @example mccraryTest(score, 60).pvalue
  */
 import { CutlineError } from '../errors';
-import { distinctScoreWarning, windowDistinctScores } from '../data/massPoints';
-import { twoSidedPvalue } from '../numeric/normal';
-import { fitPolynomial, polyDerivative, polyValue } from '../fit/polyFit';
-import { requireBothSides, scoreSummary, ScoreSummary } from '../data/scoreSummary';
+import { distinctScoreWarning, windowDistinctScores, requireBothSides, scoreSummary, ScoreSummary } from '../data';
+import { twoSidedPvalue, formatNumber } from '../numeric';
+import { fitPolynomial, polyDerivative, polyValue } from '../fit';
 
 export interface McCraryOptions {
   bin?: number;
@@ -68,9 +67,6 @@ export interface Histogram {
 
 const MAX_BINS = 20_000_000;
 
-function fmt(v: number): string {
-  return Number(v.toPrecision(6)).toString();
-}
 
 /** Default first-step bin width 2·sd·n^(−1/2). */
 export function mccraryDefaultBin(s: ScoreSummary): number {
@@ -88,13 +84,13 @@ export function histogramHeights(
   if (!(bin > 0) || !Number.isFinite(bin)) throw new CutlineError(`the density bin width must be a positive number, got ${bin}`);
   if (bin > s.max - s.min) {
     throw new CutlineError(
-      `the density bin width ${fmt(bin)} is larger than the range of the score (${fmt(s.min)} to ${fmt(s.max)}); choose a smaller bin`,
+      `the density bin width ${formatNumber(bin, 6)} is larger than the range of the score (${formatNumber(s.min, 6)} to ${formatNumber(s.max, 6)}); choose a smaller bin`,
     );
   }
   const kmin = Math.floor((s.min - cutoff) / bin);
   const kmax = Math.floor((s.max - cutoff) / bin);
   const nb = kmax - kmin + 1;
-  if (nb > MAX_BINS) throw new CutlineError(`the density bin width ${fmt(bin)} makes ${nb} bins; choose a larger bin`);
+  if (nb > MAX_BINS) throw new CutlineError(`the density bin width ${formatNumber(bin, 6)} makes ${nb} bins; choose a larger bin`);
   const count = new Float64Array(nb);
   const total = rows ? rows.length : score.length;
   for (let t = 0; t < total; t++) {
@@ -151,7 +147,7 @@ function sideIntercept(x: Float64Array, y: Float64Array, h: number, side: string
   }
   if (bins < 3) {
     throw new CutlineError(
-      `the density bandwidth ${fmt(h)} holds ${bins} bin${bins === 1 ? '' : 's'} ${side} the cutoff; at least 3 are needed — widen the bandwidth or narrow the bin`,
+      `the density bandwidth ${formatNumber(h, 6)} holds ${bins} bin${bins === 1 ? '' : 's'} ${side} the cutoff; at least 3 are needed — widen the bandwidth or narrow the bin`,
     );
   }
   const a = fitPolynomial(x, y, 1, w);
@@ -174,7 +170,7 @@ export function mccraryTest(score: ArrayLike<number>, cutoff: number, opts: McCr
     const reach = Math.max(s.max - cutoff, cutoff - s.min);
     if (h > reach) {
       throw new CutlineError(
-        `the density bandwidth ${fmt(h)} is wider than the largest distance of a score from the cutoff (${fmt(reach)}); McCrary's standard error needs a bandwidth inside the data`,
+        `the density bandwidth ${formatNumber(h, 6)} is wider than the largest distance of a score from the cutoff (${formatNumber(reach, 6)}); McCrary's standard error needs a bandwidth inside the data`,
       );
     }
   } else {
@@ -186,7 +182,7 @@ export function mccraryTest(score: ArrayLike<number>, cutoff: number, opts: McCr
   for (const [v, side] of [[below.f, 'below'], [above.f, 'above']] as const) {
     if (!(v > 0)) {
       throw new CutlineError(
-        `McCrary's density estimate ${side} the cutoff is not positive (${fmt(v)}); widen the density bandwidth or the bin`,
+        `McCrary's density estimate ${side} the cutoff is not positive (${formatNumber(v, 6)}); widen the density bandwidth or the bin`,
       );
     }
   }

@@ -15,11 +15,11 @@
  *   const w = boundaryWindow(score, 60, 8, 'triangular');
  *   const a = w.above.coef[0].reduce((s, om, i) => s + om * y[w.above.index[i]], 0);
  */
-import { rememberedFor } from '../data/memo';
+import { IndexedScore, lowerBound, OrderView, orderView, sortedOrder, valuesAt } from '../data';
 import { CutlineError } from '../errors';
 import { KernelName, kernelWeight } from './kernels';
-import { invertSmall } from '../numeric/linalg';
-import { argsortBy } from '../numeric/argsort';
+import { invertSmall, argsortBy, formatNumber } from '../numeric';
+
 
 export interface SideFit {
   /** True for the side R ≥ c. */
@@ -36,6 +36,22 @@ export interface SideFit {
   coef2?: [Float64Array, Float64Array, Float64Array];
   /** Number of distinct scores in the side's window. */
   distinct: number;
+  /** Results derived from this side and a column (gathered values, residuals), by kind; they live as long as the fit. */
+  memo: SideMemo;
+}
+
+/** What a side remembers per column (keyed by the column object, for the lifetime of the side only). */
+export interface SideMemo {
+  gathered: WeakMap<object, Float64Array>;
+  residuals: WeakMap<object, Float64Array>;
+  biasCorrected?: Float64Array;
+  /** Where the side's units sit in the score handle's sorted order (columns are then read as slices). */
+  view?: OrderView;
+  compliers: WeakMap<object, WeakMap<object, unknown>>;
+}
+
+export function sideMemo(view?: OrderView): SideMemo {
+  return { gathered: new WeakMap(), residuals: new WeakMap(), compliers: new WeakMap(), view };
 }
 
 export interface Window {
@@ -94,7 +110,7 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
   const inv = invertSmall(m);
   if (!inv) {
     throw new CutlineError(
-      `the window (bandwidth ${fmt(h)}) ${sideName(above)} the cutoff cannot be fitted by a degree-${p} polynomial: ` +
+      `the window (bandwidth ${formatNumber(h, 6)}) ${sideName(above)} the cutoff cannot be fitted by a degree-${p} polynomial: ` +
         `its scores take too few distinct values — widen the bandwidth`,
     );
   }
@@ -125,72 +141,6 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
   return out;
 }
 
-function fmt(v: number): string {
-  return Number(v.toPrecision(6)).toString();
-}
-
-// Sorted order of each score array seen, so that every window after the first
-// is two binary searches and a slice instead of a pass and a sort. Arrays
-// handed to the engine are never modified (by the engine or by the faces).
-const sortedCache = new WeakMap<object, Int32Array>();
-
-/** Positions of all units sorted by score (ties by position), computed once per array. */
-export function sortedOrder(score: ArrayLike<number>): Int32Array {
-  let order = sortedCache.get(score as object);
-  if (!order) {
-    const all = new Int32Array(score.length);
-    for (let i = 0; i < all.length; i++) all[i] = i;
-    order = argsortBy(score, all);
-    sortedCache.set(score as object, order);
-    orderByBuffer.set(order.buffer, order);
-  }
-  return order;
-}
-
-// Windows of whole arrays are views (subarrays) of the sorted order, so a
-// window's units are a contiguous run of it. A column gathered once into
-// sorted order then serves every window as a slice: sequential reads instead
-// of a random gather from the data order for each window.
-const orderByBuffer = new WeakMap<ArrayBufferLike, Int32Array>();
-const sortedColumns = new WeakMap<object, WeakMap<object, Float64Array>>();
-
-/** values in the sorted order of the score array whose order this is. */
-function sortedColumn(order: Int32Array, values: ArrayLike<number>): Float64Array {
-  return rememberedFor(sortedColumns, order, values as object, () => {
-    const col = new Float64Array(order.length);
-    for (let t = 0; t < order.length; t++) col[t] = values[order[t]];
-    return col;
-  });
-}
-
-/**
- * values[index[t]] for a window's positions: a slice of the sorted column when
- * the positions are a view of a sorted order, else a plain gather (a copy
- * either way is never needed: callers only read it).
- */
-export function valuesAt(index: Int32Array, values: ArrayLike<number>): Float64Array {
-  const order = orderByBuffer.get(index.buffer);
-  if (order && index.length > 0) {
-    const start = (index.byteOffset - order.byteOffset) / Int32Array.BYTES_PER_ELEMENT;
-    return sortedColumn(order, values).subarray(start, start + index.length);
-  }
-  const out = new Float64Array(index.length);
-  for (let t = 0; t < index.length; t++) out[t] = values[index[t]];
-  return out;
-}
-
-/** First position in the sorted order whose score is ≥ v (or > v when strict). */
-export function lowerBound(score: ArrayLike<number>, order: Int32Array, v: number, strict: boolean): number {
-  let lo = 0;
-  let hi = order.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    const s = score[order[mid]];
-    if (strict ? s <= v : s < v) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
 
 /**
  * Positions inside the window on each side, sorted by score (ties by
@@ -217,7 +167,7 @@ function windowPositions(score: ArrayLike<number>, cutoff: number, h: number, ro
   let e = lowerBound(score, order, cutoff + h, false);
   while (e > c && !(score[order[e - 1]] - cutoff < h)) e--;
   while (e < order.length && score[order[e]] - cutoff < h) e++;
-  // Views, not copies: see valuesAt.
+  // Views, not copies: see orderView.
   return { above: order.subarray(c, e), below: order.subarray(Math.min(a, c), c) };
 }
 
@@ -230,7 +180,7 @@ function coordinates(
   index: Int32Array,
 ): { x: Float64Array; k: Float64Array; distinct: number } {
   const n = index.length;
-  const r = valuesAt(index, score);
+  const r = valuesAt(index, score, orderView(score, index));
   const x = new Float64Array(n);
   const k = new Float64Array(n);
   let distinct = 0;
@@ -259,21 +209,21 @@ function fitPositions(
   const n = index.length;
   if (n < 3) {
     throw new CutlineError(
-      `the window (bandwidth ${fmt(h)}) holds ${n} unit${n === 1 ? '' : 's'} ${sideName(above)} the cutoff; ` +
+      `the window (bandwidth ${formatNumber(h, 6)}) holds ${n} unit${n === 1 ? '' : 's'} ${sideName(above)} the cutoff; ` +
         `at least 3 are needed — widen the bandwidth`,
     );
   }
   if (distinct < 2) {
     throw new CutlineError(
-      `all scores in the window ${sideName(above)} the cutoff are equal (bandwidth ${fmt(h)}); a line cannot be fitted — widen the bandwidth`,
+      `all scores in the window ${sideName(above)} the cutoff are equal (bandwidth ${formatNumber(h, 6)}); a line cannot be fitted — widen the bandwidth`,
     );
   }
   const [w0, w1] = polyWeights(x, k, h, 1, above);
-  const fit: SideFit = { above, index, x, k, coef1: [w0, w1], distinct };
+  const fit: SideFit = { above, index, x, k, coef1: [w0, w1], distinct, memo: sideMemo(orderView(score, index)) };
   if (withQuadratic) {
     if (distinct < 3 || n < 4) {
       throw new CutlineError(
-        `the window (bandwidth ${fmt(h)}) ${sideName(above)} the cutoff holds only ${distinct} distinct score${distinct === 1 ? '' : 's'}; ` +
+        `the window (bandwidth ${formatNumber(h, 6)}) ${sideName(above)} the cutoff holds only ${distinct} distinct score${distinct === 1 ? '' : 's'}; ` +
           `the bias-corrected interval fits a curve and needs at least 3 — widen the bandwidth`,
       );
     }
@@ -287,6 +237,7 @@ function fitPositions(
 export interface SortedSide {
   index: Int32Array;
   x: Float64Array;
+  memo?: SideMemo;
 }
 
 /**
@@ -307,10 +258,10 @@ export function curvatureWeights(
   const { x, k, distinct } = coordinates(score, cutoff, b, kernel, index);
   if (n < 4 || distinct < 3) {
     throw new CutlineError(
-      `the score takes only ${distinct} distinct value${distinct === 1 ? '' : 's'} within ${fmt(b)} ${sideName(above)} the cutoff, too few for the bandwidth rule to measure the data's curvature (it needs 3); give a bandwidth instead`,
+      `the score takes only ${distinct} distinct value${distinct === 1 ? '' : 's'} within ${formatNumber(b, 6)} ${sideName(above)} the cutoff, too few for the bandwidth rule to measure the data's curvature (it needs 3); give a bandwidth instead`,
     );
   }
-  return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2] };
+  return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2], memo: sideMemo(orderView(score, index)) };
 }
 
 function checkBandwidth(h: number): void {
@@ -319,10 +270,9 @@ function checkBandwidth(h: number): void {
 
 // A check asks for the same side fit several times (bandwidth pilots shared by
 // two rules, the estimates and the complier distributions at one bandwidth):
-// the last few fits of each score array are kept. A fit with the quadratic
-// serves a request without it.
+// a score handle (data/indexedScore.ts) keeps its last few fits. A fit with the
+// quadratic serves a request without it. A plain array keeps nothing.
 const FITS_KEPT = 6;
-const fitCache = new WeakMap<object, Map<string, SideFit>>();
 
 function cachedFit(
   score: ArrayLike<number>,
@@ -333,17 +283,15 @@ function cachedFit(
   withQuadratic: boolean,
   positions: () => Int32Array,
 ): SideFit {
-  let cache = fitCache.get(score as object);
-  if (!cache) {
-    cache = new Map();
-    fitCache.set(score as object, cache);
-  }
-  const key = (q: boolean): string => `${cutoff}|${h}|${kernel}|${above}|${q}`;
-  const hit = cache.get(key(true)) ?? (withQuadratic ? undefined : cache.get(key(false)));
+  if (!(score instanceof IndexedScore)) return fitPositions(score, cutoff, h, kernel, above, withQuadratic, positions());
+  const cache = (score.memo ??= new Map());
+  const key = (q: boolean): string => `fit|${cutoff}|${h}|${kernel}|${above}|${q}`;
+  const hit = (cache.get(key(true)) ?? (withQuadratic ? undefined : cache.get(key(false)))) as SideFit | undefined;
   if (hit) return hit;
   const fit = fitPositions(score, cutoff, h, kernel, above, withQuadratic, positions());
   cache.set(key(withQuadratic), fit);
-  if (cache.size > FITS_KEPT) cache.delete(cache.keys().next().value as string);
+  const fits = [...cache.keys()].filter((k) => k.startsWith('fit|'));
+  if (fits.length > FITS_KEPT) cache.delete(fits[0]);
   return fit;
 }
 

@@ -2,7 +2,7 @@
  * A point estimate with its conventional and robust bias-corrected
  * inference, as every face reports it.
  */
-import { normalQuantile, twoSidedPvalue } from '../numeric/normal';
+import { normalQuantile, twoSidedPvalue } from '../numeric';
 
 export interface Estimate {
   estimate: number;

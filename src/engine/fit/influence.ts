@@ -3,7 +3,7 @@
  * Σ_below w_i V_i has influence terms ψ_i = ±w_i e_i (residuals e of
  * residuals.ts); then (docs/methods.md §2.3)
  *
- * - hc0 / hc1 / nn: Var = Σ ψ_i², Cov(A, B) = Σ ψ^A_i ψ^B_i (sides independent);
+ * - hc0 / hc1 / neighbours: Var = Σ ψ_i², Cov(A, B) = Σ ψ^A_i ψ^B_i (sides independent);
  * - cluster: Var = G/(G−1) Σ_g (Σ_{i∈g} ψ_i)², G the clusters in the window; a
  *   cluster spanning the cutoff adds its cross-side term automatically.
  *

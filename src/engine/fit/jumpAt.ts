@@ -9,8 +9,9 @@
  *
  * @example
  *   const w = boundaryWindow(score, 60, 8, 'triangular');
- *   jumpAt(w, bill, { variance: 'nn' }).estimate
+ *   jumpAt(w, bill, { variance: 'neighbours' }).estimate
  */
+import { CutlineError } from '../errors';
 import { Window } from './boundaryWindow';
 import { Estimate, makeEstimate } from './estimate';
 import { varianceOf } from './influence';
@@ -38,7 +39,7 @@ export function windowClusters(win: Window, clusters?: Int32Array): Int32Array |
 
 function check(opts: JumpOptions): void {
   if (opts.variance === 'cluster' && !opts.clusters) {
-    throw new Error('the cluster variance needs cluster ids');
+    throw new CutlineError('the cluster variance needs a cluster code for every row', { code: 'option', argument: 'clusters' });
   }
 }
 

@@ -9,10 +9,6 @@ export type KernelName = 'triangular' | 'epanechnikov' | 'uniform';
 
 export const KERNEL_NAMES: readonly KernelName[] = ['triangular', 'epanechnikov', 'uniform'];
 
-export function isKernelName(s: string): s is KernelName {
-  return (KERNEL_NAMES as readonly string[]).includes(s);
-}
-
 /** K(u) for the named kernel. */
 export function kernelWeight(kernel: KernelName, u: number): number {
   const a = Math.abs(u);
@@ -25,7 +21,7 @@ export function kernelWeight(kernel: KernelName, u: number): number {
     case 'uniform':
       return 0.5;
     default:
-      throw new CutlineError(`unknown kernel "${String(kernel)}"`);
+      throw new CutlineError(`unknown kernel "${String(kernel)}"`, { code: 'option', argument: 'kernel' });
   }
 }
 
@@ -46,6 +42,6 @@ export function kernelMoment(kernel: KernelName, j: number, squared = false): nu
       return 0.5625 * (1 / (j + 1) - 2 / (j + 3) + 1 / (j + 5));
     }
     default:
-      throw new CutlineError(`unknown kernel "${String(kernel)}"`);
+      throw new CutlineError(`unknown kernel "${String(kernel)}"`, { code: 'option', argument: 'kernel' });
   }
 }

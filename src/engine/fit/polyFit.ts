@@ -4,7 +4,7 @@
  * conditioning. A small helper of the density tests' and the binned plots'
  * global "rule of thumb" fits; returns null when the design is singular.
  */
-import { invertSmall } from '../numeric/linalg';
+import { invertSmall } from '../numeric';
 
 export function fitPolynomial(
   x: ArrayLike<number>,

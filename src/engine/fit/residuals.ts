@@ -6,7 +6,7 @@
  *   the estimate, degree 2 for the bias-corrected one).
  * - `hc1`: hc0 times sqrt(n_s/(n_s − q)), q the fit's parameter count (2 for
  *   the line, the usual degrees-of-freedom factor; 3 for the quadratic, Cutline's choice).
- * - `nn`: sqrt(J_i/(J_i+1))·(V_i − mean of V over the nearest neighbours by
+ * - `neighbours`: sqrt(J_i/(J_i+1))·(V_i − mean of V over the nearest neighbours by
  *   score on the same side of the window), Calonico, Cattaneo & Titiunik
  *   (2014, §3 and supplement): the J = 3 nearest, and every further unit at
  *   the same distance as the 3rd up to 1e-12 relative (J_i ≥ 3 counts them). Taking all the ties
@@ -14,13 +14,13 @@
  *   (a score with mass points would otherwise let the row order pick among
  *   tied units); Cutline's reading, recalled from memory as the supplement's.
  */
-import { rememberedFor } from '../data/memo';
-import { SideFit, SortedSide, valuesAt } from './boundaryWindow';
+import { valuesAt } from '../data';
+import { SideFit, SortedSide } from './boundaryWindow';
 
-export type VarianceName = 'hc0' | 'hc1' | 'nn' | 'cluster';
-export const VARIANCE_NAMES: readonly VarianceName[] = ['hc0', 'hc1', 'nn', 'cluster'];
+export type VarianceName = 'hc0' | 'hc1' | 'neighbours' | 'cluster';
+export const VARIANCE_NAMES: readonly VarianceName[] = ['hc0', 'hc1', 'neighbours', 'cluster'];
 
-export const NN_NEIGHBOURS = 3;
+export const NEIGHBOURS = 3;
 
 /** Residuals of the side's least-squares fit of V, degree 1 or 2. */
 export function fitResiduals(side: SideFit, values: ArrayLike<number>, degree: 1 | 2): Float64Array {
@@ -46,23 +46,26 @@ export function fitResiduals(side: SideFit, values: ArrayLike<number>, degree: 1
   return e;
 }
 
-// A column's values at a side's units, in the side's order: every pass over a
-// window reads them, and the gather from the data order is the slow part.
-const gatherCache = new WeakMap<object, WeakMap<object, Float64Array>>();
-
-/** values[index[t]] for the side's units, computed once per side and column. */
+/** values[index[t]] for the side's units, gathered once per side and column (remembered by the side). */
 export function gathered(side: SortedSide, values: ArrayLike<number>): Float64Array {
-  return rememberedFor(gatherCache, side, values as object, () => valuesAt(side.index, values));
+  const memo = side.memo?.gathered;
+  let v = memo?.get(values as object);
+  if (!v) {
+    v = valuesAt(side.index, values, side.memo?.view);
+    memo?.set(values as object, v);
+  }
+  return v;
 }
 
-// nn residuals depend on the side and the column only; a check asks for the
-// same ones several times (pilots, estimates). Callers never write to them.
-const nnCache = new WeakMap<object, WeakMap<object, Float64Array>>();
-
-/** Nearest-neighbour residuals (J = 3) of V on one side. */
-export function nnResiduals(side: SortedSide, values: ArrayLike<number>, J = NN_NEIGHBOURS): Float64Array {
-  if (J !== NN_NEIGHBOURS) return computeNn(side, values, J);
-  return rememberedFor(nnCache, side, values as object, () => computeNn(side, values, J));
+/** Nearest-neighbour residuals (J = 3) of V on one side; the side remembers them (pilots and estimates ask twice). */
+export function neighbourResiduals(side: SortedSide, values: ArrayLike<number>, J = NEIGHBOURS): Float64Array {
+  const memo = J === NEIGHBOURS ? side.memo?.residuals : undefined;
+  let e = memo?.get(values as object);
+  if (!e) {
+    e = computeNeighbourResiduals(side, values, J);
+    memo?.set(values as object, e);
+  }
+  return e;
 }
 
 /**
@@ -78,7 +81,7 @@ export function nnResiduals(side: SortedSide, values: ArrayLike<number>, J = NN_
  * compensated (Neumaier) so that a large group's sum minus one value keeps
  * the precision of a direct sum.
  */
-function computeNn(side: SortedSide, values: ArrayLike<number>, J: number): Float64Array {
+function computeNeighbourResiduals(side: SortedSide, values: ArrayLike<number>, J: number): Float64Array {
   const { x } = side;
   const n = x.length;
   const v = gathered(side, values);
@@ -161,7 +164,7 @@ export function sideResiduals(
   variance: VarianceName,
   degree: 1 | 2,
 ): Float64Array {
-  if (variance === 'nn') return nnResiduals(side, values);
+  if (variance === 'neighbours') return neighbourResiduals(side, values);
   const e = fitResiduals(side, values, degree);
   if (variance === 'hc1') {
     const n = e.length;

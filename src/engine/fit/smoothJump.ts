@@ -11,7 +11,7 @@
  * Calonico, Cattaneo & Farrell 2020 recommend as a simple default), so the
  * quadratic is fitted on the same window with the same kernel. The corrected
  * estimate is the linear smoother ω_bc = ω − β q₂, and its variance uses ω_bc
- * with the quadratic fit's residuals (nn residuals under `nn`).
+ * with the quadratic fit's residuals (nearest-neighbour residuals under `neighbours`).
  *
  * `sign` is +1 when eligibility sits above the cutoff and −1 when it sits
  * below (then every jump is reported as below − above).
@@ -38,14 +38,9 @@ export function biasCorrectedWeights(side: SideFit): Float64Array {
   return out;
 }
 
-const bcCache = new WeakMap<SideFit, Float64Array>();
+/** The side's bias-corrected weights, computed once per side. */
 function bcWeights(side: SideFit): Float64Array {
-  let w = bcCache.get(side);
-  if (!w) {
-    w = biasCorrectedWeights(side);
-    bcCache.set(side, w);
-  }
-  return w;
+  return (side.memo.biasCorrected ??= biasCorrectedWeights(side));
 }
 
 export function smoothJump(win: Window, values: ArrayLike<number>, variance: VarianceName, sign: 1 | -1 = 1): SmoothedJump {
@@ -70,7 +65,7 @@ export function smoothJump(win: Window, values: ArrayLike<number>, variance: Var
     estimate += s * a;
     if (robust) {
       const wb = bcWeights(side);
-      const e2 = variance === 'nn' ? e1 : sideResiduals(side, values, variance, 2);
+      const e2 = variance === 'neighbours' ? e1 : sideResiduals(side, values, variance, 2);
       let ab = 0;
       for (let t = 0; t < wb.length; t++) {
         ab += wb[t] * v[t];

@@ -19,7 +19,7 @@
  * @example binnedMeans(score, bill, 60).bins
  */
 import { CutlineError } from '../errors';
-import { fitPolynomial, polyDerivative, polyValue } from '../fit/polyFit';
+import { fitPolynomial, polyDerivative, polyValue } from '../fit';
 
 export interface BinnedMean {
   side: 'below' | 'above';

@@ -7,8 +7,7 @@
  *
  * @example fitLine(score, bill, 60, 8, 'triangular').above.intercept
  */
-import { applyWeights, sideFit } from '../fit/boundaryWindow';
-import { KernelName } from '../fit/kernels';
+import { applyWeights, sideFit, KernelName } from '../fit';
 
 export interface FitLineSide {
   intercept: number;

@@ -22,7 +22,7 @@
  * and the same cell sums: O(window + intervals) per draw.
  */
 import { MomentSet, SideSums } from './validityMoments';
-import { Random } from '../numeric/random';
+import { Random } from '../numeric';
 
 export type MultiplierName = 'normal' | 'rademacher';
 

@@ -20,8 +20,7 @@
  * only with trim 0) never divides by zero. Order: arm 1 first, then first
  * bin, then last bin.
  */
-import { SideFit, Window } from '../fit/boundaryWindow';
-import { gathered } from '../fit/residuals';
+import { SideFit, Window, gathered } from '../fit';
 import { IntervalClass, binOf } from './intervalClass';
 
 /** Per-side cell sums; cell = arm-1 bins 0..G′−1, then arm-0 bins G′..2G′−1. */

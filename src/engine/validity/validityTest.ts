@@ -34,11 +34,9 @@
  *   const r = validityTest(score, treated, bill, 60, { bandwidth: 8, kernel: 'triangular' });
  *   r.pvalue; r.worst; // { arm: 1, from: 410, to: 530, t: 2.7 }
  */
-import { boundaryWindow } from '../fit/boundaryWindow';
+import { boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
 import { intervalClass } from './intervalClass';
-import { KernelName } from '../fit/kernels';
-import { gathered } from '../fit/residuals';
 import { MultiplierName, bootstrapMaxima, selection } from './validityBootstrap';
 import { MomentSet, selectMoments, takeupOf, validityMoments } from './validityMoments';
 

@@ -16,7 +16,7 @@ const sides = Int32Array.from(score, (r) => (r >= 0 ? 1 : 0));
 test('clusters that are the two sides: clustered se about 0, and both warnings', () => {
   const win = boundaryWindow(score, 0, 0.5, 'triangular');
   const clustered = jumpAt(win, y, { variance: 'cluster', clusters: sides });
-  const nn = jumpAt(win, y, { variance: 'nn' });
+  const nn = jumpAt(win, y, { variance: 'neighbours' });
   expect(clustered.se).toBeLessThan(1e-10 * nn.se);
   const w = clusterWarnings(sides, win.below.index, win.above.index, ['west', 'east'], 'g');
   expect(w).toHaveLength(2);

@@ -1,8 +1,8 @@
 /**
- * The nearest-neighbour (`nn`) standard errors of the jump (METHODS.md §2,
+ * The nearest-neighbour (`neighbours`) standard errors of the jump (METHODS.md §2,
  * src/engine/fit/residuals.ts) against an independent reference. Source of every
  * reference value: NumPy, brute-force nearest neighbours,
- * test/fixtures/estimates/make_nn.py — intercept and x² weights by
+ * test/fixtures/estimates/make_neighbours.py — intercept and x² weights by
  * numpy.linalg.lstsq on each side, neighbours by sorting all other window units
  * of the side by (|x_j − x_i|, score), conventional se = sqrt(Σ ω²e²) and robust
  * se with ω − (Σω x²)q₂. Units with equal scores tie fully and the rule leaves
@@ -11,16 +11,16 @@
 import { boundaryWindow } from '../../../src/engine/fit/boundaryWindow';
 import { jumpAt } from '../../../src/engine/fit/jumpAt';
 import { KernelName } from '../../../src/engine/fit/kernels';
-import { nnResiduals } from '../../../src/engine/fit/residuals';
+import { neighbourResiduals } from '../../../src/engine/fit/residuals';
 import { readCsv, readJson, rel } from '../../fixtures/estimates/readFixture';
 import { nnBruteForce } from '../../helpers/nnBruteForce';
 
-const SOURCE = 'NumPy, brute-force nearest neighbours, test/fixtures/estimates/make_nn.py';
+const SOURCE = 'NumPy, brute-force nearest neighbours, test/fixtures/estimates/make_neighbours.py';
 
 interface SideRef {
   n: number;
   rows: number[];
-  nn_admissible: number[][];
+  neighbour_admissible: number[][];
   ambiguous_units: number;
 }
 interface Case {
@@ -39,12 +39,12 @@ interface Case {
   ambiguous_units: number;
 }
 
-const fixture = readJson<{ source: string; cases: Case[] }>('nn.json');
+const fixture = readJson<{ source: string; cases: Case[] }>('neighbours.json');
 const exact = fixture.cases.filter((c) => c.ambiguous_units === 0);
 const run = (c: Case) => {
   const D = readCsv(c.data);
   const win = boundaryWindow(D.score, c.cutoff, c.bandwidth, c.kernel);
-  return { D, win, est: jumpAt(win, D[c.column], { variance: 'nn' }) };
+  return { D, win, est: jumpAt(win, D[c.column], { variance: 'neighbours' }) };
 };
 
 test('the fixture holds full-tie-free cases on every dataset, tied scores included', () => {
@@ -54,8 +54,8 @@ test('the fixture holds full-tie-free cases on every dataset, tied scores includ
 describe.each(exact.map((c) => [c.name, c] as const))('%s', (_name, c) => {
   const { est } = run(c);
   test(`se and se_robust match (${SOURCE})`, () => {
-    expect(rel(est.se, c.se)).toBeLessThan(1e-10); // source: NumPy, brute-force nearest neighbours, make_nn.py
-    expect(rel(est.se_robust, c.se_robust)).toBeLessThan(1e-10); // source: NumPy, brute-force nearest neighbours, make_nn.py
+    expect(rel(est.se, c.se)).toBeLessThan(1e-10); // source: NumPy, brute-force nearest neighbours, make_neighbours.py
+    expect(rel(est.se_robust, c.se_robust)).toBeLessThan(1e-10); // source: NumPy, brute-force nearest neighbours, make_neighbours.py
   });
   test(`jump and bias-corrected jump match (${SOURCE})`, () => {
     // scaled by the se: a jump near 0 (A outcome) loses relative digits to cancellation
@@ -69,28 +69,28 @@ describe.each(fixture.cases.map((c) => [c.name, c] as const))('%s, unit by unit'
   test.each([
     ['above', win.above, c.above],
     ['below', win.below, c.below],
-  ] as const)(`%s: window rows and every nn residual is one the rule admits (${SOURCE})`, (_s, side, ref) => {
+  ] as const)(`%s: window rows and every nearest-neighbour residual is one the rule admits (${SOURCE})`, (_s, side, ref) => {
     expect(Array.from(side.index).sort((a, b) => a - b)).toEqual(ref.rows);
-    const e = nnResiduals(side, D[c.column]);
-    const at = new Map(ref.rows.map((r, t) => [r, ref.nn_admissible[t]]));
+    const e = neighbourResiduals(side, D[c.column]);
+    const at = new Map(ref.rows.map((r, t) => [r, ref.neighbour_admissible[t]]));
     let worst = 0;
     side.index.forEach((row, t) => {
       const d = Math.min(...at.get(row)!.map((a) => Math.abs(e[t] - a) / Math.max(1, Math.abs(a))));
       worst = Math.max(worst, d);
     });
-    expect(worst).toBeLessThan(1e-10); // source: NumPy, brute-force nearest neighbours, make_nn.py
+    expect(worst).toBeLessThan(1e-10); // source: NumPy, brute-force nearest neighbours, make_neighbours.py
   });
 });
 
-test('nn standard errors do not depend on the order of the rows (all ties at the 3rd distance are taken)', () => {
-  // Property of the rule itself (src/engine/fit/residuals.ts); the data: the tied grid of make_nn.py.
+test('nearest-neighbour standard errors do not depend on the order of the rows (all ties at the 3rd distance are taken)', () => {
+  // Property of the rule itself (src/engine/fit/residuals.ts); the data: the tied grid of make_neighbours.py.
   const D = readCsv('data_tied.csv');
   const n = D.score.length;
   const perm = Array.from({ length: n }, (_, i) => (i * 17 + 5) % n); // 17 is coprime with n = 41
   const shuffled = (a: Float64Array): Float64Array => Float64Array.from(perm, (p) => a[p]);
   for (const kernel of ['triangular', 'uniform'] as const) {
-    const a = jumpAt(boundaryWindow(D.score, 0, 3.5, kernel), D.y_row, { variance: 'nn' });
-    const b = jumpAt(boundaryWindow(shuffled(D.score), 0, 3.5, kernel), shuffled(D.y_row), { variance: 'nn' });
+    const a = jumpAt(boundaryWindow(D.score, 0, 3.5, kernel), D.y_row, { variance: 'neighbours' });
+    const b = jumpAt(boundaryWindow(shuffled(D.score), 0, 3.5, kernel), shuffled(D.y_row), { variance: 'neighbours' });
     expect(rel(b.se, a.se)).toBeLessThan(1e-12);
     expect(rel(b.se_robust, a.se_robust)).toBeLessThan(1e-12);
   }
@@ -113,7 +113,7 @@ test('grouped nn residuals equal the unit-by-unit rule whatever the ties (refere
     const x = Float64Array.from({ length: n }, (_, i) => draw(i)).sort();
     const v = Float64Array.from({ length: n }, () => rand() * 10 - 3);
     const side = { index: Int32Array.from({ length: n }, (_, i) => i), x };
-    const ours = nnResiduals(side, v);
+    const ours = neighbourResiduals(side, v);
     const ref = nnBruteForce(x, v);
     for (let i = 0; i < n; i++) expect(Math.abs(ours[i] - ref[i])).toBeLessThan(1e-10 * (1 + Math.abs(ref[i])));
   }

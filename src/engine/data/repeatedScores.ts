@@ -9,14 +9,15 @@
  * states it: do not read the test as evidence either way; look at the counts
  * at the support points next to the cutoff.
  *
- * Cutline's rule (its own choice): a side is "mostly mass points" when its
+ * Cutline's rule (its own choice): a side's scores are "mostly repeated" when its
  * window holds fewer than 10 distinct scores, or when on average more than 20
  * units share each distinct score (heaping). A score recorded to one decimal
  * over a window of many tenths is not flagged: the density tests' bins and
  * bandwidths span many support points there.
  */
 
-import { sortedOrder } from '../fit/boundaryWindow';
+import { sortedOrder } from './indexedScore';
+import { firstAtLeast } from '../numeric';
 
 export interface DistinctScores {
   below: number;
@@ -73,13 +74,7 @@ function distinctFromOrder(score: ArrayLike<number>, cutoff: number, bandwidth: 
   const out = { below: 0, above: 0, unitsBelow: 0, unitsAbove: 0 };
   let prev = NaN;
   // First unit with x > −bandwidth (the predicate is monotone along the order).
-  let lo = 0;
-  let hi = order.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (score[order[mid]] - cutoff > -bandwidth) hi = mid;
-    else lo = mid + 1;
-  }
+  const lo = firstAtLeast((t) => score[order[t]] - cutoff > -bandwidth ? 1 : 0, 0, order.length, 1, false);
   for (let t = lo; t < order.length; t++) {
     const r = score[order[t]];
     const x = r - cutoff;
@@ -99,16 +94,16 @@ function distinctFromOrder(score: ArrayLike<number>, cutoff: number, bandwidth: 
   return out;
 }
 
-/** True when a side's window is mostly mass points (see the rule above). */
-export function mostlyMassPoints(distinct: number, units: number): boolean {
+/** True when a side's window holds mostly repeated scores (see the rule above). */
+export function mostlyRepeated(distinct: number, units: number): boolean {
   return units > 0 && (distinct < FEW_DISTINCT || distinct * UNITS_PER_VALUE < units);
 }
 
 /** The caveat for a density test or plot, or null when the score looks continuous. */
 export function distinctScoreWarning(d: DistinctScores, what = 'the density tests'): string | null {
   const bad: string[] = [];
-  if (mostlyMassPoints(d.below, d.unitsBelow)) bad.push(`${d.below} distinct values among ${d.unitsBelow} units below the cutoff`);
-  if (mostlyMassPoints(d.above, d.unitsAbove)) bad.push(`${d.above} distinct values among ${d.unitsAbove} units above the cutoff`);
+  if (mostlyRepeated(d.below, d.unitsBelow)) bad.push(`${d.below} distinct values among ${d.unitsBelow} units below the cutoff`);
+  if (mostlyRepeated(d.above, d.unitsAbove)) bad.push(`${d.above} distinct values among ${d.unitsAbove} units above the cutoff`);
   if (bad.length === 0) return null;
   return (
     `the score takes few distinct values near the cutoff (${bad.join('; ')}): a continuously distributed score ` +

@@ -1,0 +1,4 @@
+// The public face of src/engine/compliers: what other folders and the engine's index (src/engine/index.ts) use.
+// Everything not listed here is private to the folder; import it from here, never from its file.
+export { complierCdf, complierDensity, complierMeans } from './complierDistributions';
+export { complierGrid } from './complierGrid';

@@ -1,0 +1,15 @@
+// The public face of src/engine/fit: what other folders and the engine's index (src/engine/index.ts) use.
+// Everything not listed here is private to the folder; import it from here, never from its file.
+export { applyWeights, boundaryWindow, curvatureWeights, sideFit } from './boundaryWindow';
+export type { SideFit, SortedSide, Window } from './boundaryWindow';
+export type { Estimate } from './estimate';
+export { estimatesAtCutoff, windowWarnings } from './estimatesAtCutoff';
+export type { CutoffEstimates } from './estimatesAtCutoff';
+export { varianceOf } from './influence';
+export { jumpAt } from './jumpAt';
+export { KERNEL_NAMES, kernelMoment } from './kernels';
+export type { KernelName } from './kernels';
+export { fitPolynomial, polyDerivative, polyValue } from './polyFit';
+export { VARIANCE_NAMES, gathered, neighbourResiduals } from './residuals';
+export type { VarianceName } from './residuals';
+export { ratioPsi, smoothJump } from './smoothJump';
