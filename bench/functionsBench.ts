@@ -9,8 +9,7 @@
  * fastest: on a machine shared with other work the CPU time and the fastest
  * run are the fairer measure of the work itself.
  *
- * "Cold" = the functions' cache and the engine's per-array memories empty
- * (new ranges, forgetAll()); the first call in the process also pays for
+ * "Cold" = the functions' cache empty (new ranges, forgetAll()); the first call in the process also pays for
  * compiling the code, reported apart.
  * Run: node bin/run-ts.cjs bench/functionsBench.ts
  */

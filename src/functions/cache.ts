@@ -5,7 +5,7 @@
  * what the cells hold, not by the arrays: an unchanged formula finds its
  * result from the hash of its cells alone (one quick pass, no checking), and
  * the formulas of a summary sheet share one prepared column per content (the
- * same Float64Array, so the engine's own per-array memories also hit).
+ * same Float64Array, read and checked once).
  *
  * @example
  *   const c = new BoundedCache<string, number>(2);
