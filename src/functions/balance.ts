@@ -43,10 +43,10 @@ export function balance(
     if (!c.detail) return single('BALANCE', r.pvalue);
     return table([
       ['jump', cellOf(r.jump)],
-      ['standard error', cellOf(r.se)],
-      ['p-value (robust)', cellOf(r.pvalue)],
-      ['permutation p-value', r.permutation_pvalue === undefined ? 'not computed' : cellOf(r.permutation_pvalue)],
-      ['units nearest the cutoff per side (permutation test)', r.q === undefined ? 'not computed' : r.q],
+      ['se', cellOf(r.se)],
+      ['pvalue', cellOf(r.pvalue)],
+      ['permutation_pvalue', r.permutation_pvalue === undefined ? 'not computed' : cellOf(r.permutation_pvalue)],
+      ['q', r.q === undefined ? 'not computed' : r.q],
       ...commonRows(r),
     ]);
   });

@@ -18,18 +18,27 @@ import { prepareCall, ranges } from './prepare';
  * @param score Scores (running variable): one column; a title cell at the top is skipped.
  * @param values Values to average in each bin, the same rows as score.
  * @param cutoff Cutoff of the score: units at or above it are on the upper side.
+ * @param [bandwidth] Bandwidth of the fit lines drawn over the bins; leave empty for the data-driven rule.
  * @param [settings] Two-column range of settings (name, value), e.g. rule, kernel, donut.
  * @param [detail] TRUE adds rows used and dropped, the numbers of bins and warnings below the table.
  * @param invocation Invocation (supplied by Excel).
  * @returns A table of bins: midpoint, mean, units, side.
  * @requiresParameterAddresses
  */
-export function bins(score: any[][], values: any[][], cutoff: number, settings?: any[][], detail?: boolean, invocation?: CustomFunctions.Invocation): any[][] {
+export function bins(
+  score: any[][],
+  values: any[][],
+  cutoff: number,
+  bandwidth?: number,
+  settings?: any[][],
+  detail?: boolean,
+  invocation?: CustomFunctions.Invocation,
+): any[][] {
   return guarded('BINS', (): Matrix => {
-    const c = prepareCall('BINS', { ranges: ranges(['score', score], ['values', values]), cutoff, settings, settingsPosition: 3, detail }, invocation);
+    const c = prepareCall('BINS', { ranges: ranges(['score', score], ['values', values]), cutoff, bandwidth, settings, settingsPosition: 4, detail }, invocation);
     const r = c.result(() => binnedMeansAt(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
-    const rows: Cell[][] = [['bin midpoint', 'mean', 'units', 'side'], ...r.bins.map((b): Cell[] => [cellOf(b.midpoint), cellOf(b.mean), b.count, b.side])];
+    const rows: Cell[][] = [['midpoint', 'mean', 'count', 'side'], ...r.bins.map((b): Cell[] => [cellOf(b.midpoint), cellOf(b.mean), b.count, b.side])];
     if (!c.detail) return rows;
-    return table([...rows, ['bins laid below the cutoff', r.bins_below], ['bins laid above the cutoff', r.bins_above], ...commonRows(r)], 4);
+    return table([...rows, ['bins_below', r.bins_below], ['bins_above', r.bins_above], ...commonRows(r)], 4);
   });
 }

@@ -106,7 +106,7 @@ export function flagArgument(v: unknown): boolean {
 export function engineOptions(bandwidth: number | undefined, s: Settings, missing: EstimateOptions['missing']): ValidityOptions {
   return {
     bandwidth,
-    rule: s.rule,
+    rule: s.rule === 'typed' ? undefined : s.rule,
     kernel: s.kernel,
     variance: s.variance,
     eligible: s.eligible,

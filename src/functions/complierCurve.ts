@@ -27,8 +27,7 @@ export function atArgument(at: unknown, invocation: InvocationLike | null | unde
 
 export function curveMatrix(r: ComplierCurveResult, what: string, detail: boolean, row: boolean): Matrix {
   if (!detail) return row ? [r.values.map((v) => cellOf(v))] : r.values.map((v) => [cellOf(v)]);
-  const arm = r.arm === 1 ? 'treated compliers' : 'untreated compliers';
-  const rows: Cell[][] = [['outcome value', `${what} of ${arm}`], ...r.at.map((a, i): Cell[] => [a, cellOf(r.values[i])])];
-  for (const s of r.violations) rows.push([`${what === 'density' ? 'negative' : 'falls'} from`, `${s.from} to ${s.to}`]);
+  const rows: Cell[][] = [['at', `${what}_${r.arm === 1 ? 'treated' : 'untreated'}`], ...r.at.map((a, i): Cell[] => [a, cellOf(r.values[i])])];
+  for (const s of r.violations) rows.push([what === 'density' ? 'negative' : 'decreasing', `${s.from} to ${s.to}`]);
   return table([...rows, ...commonRows(r)]);
 }

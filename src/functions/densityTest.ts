@@ -42,12 +42,12 @@ export function densitytest(score: any[][], cutoff: number, settings?: any[][], 
     }
     if (!c.detail) return single('DENSITYTEST', r.pvalue);
     return table([
-      ['p-value', cellOf(r.pvalue)],
-      ['test', r.method === 'local_polynomial' ? 'local polynomial (Cattaneo, Jansson & Ma)' : 'McCrary'],
-      ['log ratio of the densities', cellOf(r.log_ratio)],
-      ['standard error', cellOf(r.se)],
-      ['p-value, local polynomial', r.local_polynomial ? cellOf(r.local_polynomial.pvalue) : 'not computed'],
-      ['p-value, McCrary', r.mccrary ? cellOf(r.mccrary.pvalue) : 'not computed'],
+      ['pvalue', cellOf(r.pvalue)],
+      ['method', r.method],
+      ['log_ratio', cellOf(r.log_ratio)],
+      ['se', cellOf(r.se)],
+      ['pvalue_local_polynomial', r.local_polynomial ? cellOf(r.local_polynomial.pvalue) : 'not computed'],
+      ['pvalue_mccrary', r.mccrary ? cellOf(r.mccrary.pvalue) : 'not computed'],
       ...commonRows(r),
     ]);
   });

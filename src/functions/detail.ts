@@ -1,25 +1,27 @@
 /**
- * The `detail` tables: two columns, a label and a value, in the words of
- * Cutline's summary (estimate, standard error, both intervals, p-value,
- * bandwidth, window counts, rows used and dropped, one row per warning).
+ * The `detail` tables: two columns, a label and a value. The labels are the
+ * field names of the JSON document of `cutline check` (estimate, se, ci_low,
+ * ci_high, ci_robust_low, ci_robust_high, pvalue, bandwidth, window_below,
+ * window_above, rows_used, rows_dropped, one `warning` row per warning): they
+ * do not change with the settings, so a formula can read one field with
+ * VLOOKUP (the summary sheet does).
  */
 import { Estimate } from '../engine';
 import { Cell, cellOf, Matrix } from './call';
 
 export type Row = [string, Cell];
 
-const pct = (level = 0.95): string => `${Number((level * 100).toPrecision(4))}%`;
-
-/** The rows of one estimate with its two intervals. */
-export function estimateRows(what: string, e: Estimate, level?: number): Row[] {
+/** The rows of one estimate with its two intervals (at the `level` setting) and its robust p-value. */
+export function estimateRows(e: Estimate): Row[] {
   return [
-    [what, cellOf(e.estimate)],
-    ['standard error', cellOf(e.se)],
-    [`${pct(level)} interval, low`, cellOf(e.ci[0])],
-    [`${pct(level)} interval, high`, cellOf(e.ci[1])],
-    [`robust ${pct(level)} interval, low`, cellOf(e.ci_robust[0])],
-    [`robust ${pct(level)} interval, high`, cellOf(e.ci_robust[1])],
-    ['p-value (robust)', cellOf(e.pvalue)],
+    ['estimate', cellOf(e.estimate)],
+    ['se', cellOf(e.se)],
+    ['ci_low', cellOf(e.ci[0])],
+    ['ci_high', cellOf(e.ci[1])],
+    ['ci_robust_low', cellOf(e.ci_robust[0])],
+    ['ci_robust_high', cellOf(e.ci_robust[1])],
+    ['pvalue', cellOf(e.pvalue)],
+    ['pvalue_conventional', cellOf(e.pvalue_conventional)],
   ];
 }
 
@@ -32,14 +34,8 @@ export function commonRows(r: {
 }): Row[] {
   const out: Row[] = [];
   if (r.bandwidth !== undefined) out.push(['bandwidth', cellOf(r.bandwidth)]);
-  out.push(
-    ['units in the window below the cutoff', r.counts.below],
-    ['units in the window above the cutoff', r.counts.above],
-    ['rows used', r.rows.used],
-    ['rows dropped (a value missing)', r.rows.dropped],
-  );
+  out.push(['window_below', r.counts.below], ['window_above', r.counts.above], ['rows_used', r.rows.used], ['rows_dropped', r.rows.dropped]);
   for (const w of r.warnings) out.push(['warning', w]);
-  if (r.warnings.length === 0) out.push(['warnings', 'none']);
   return out;
 }
 

@@ -45,10 +45,10 @@ export function effect(
     const r = c.result(() => complierEffect(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, c.opts));
     if (!c.detail) return single('EFFECT', r.effect.estimate);
     return table([
-      ...estimateRows('effect for compliers', r.effect, c.settings.level),
-      ['take-up jump', cellOf(r.takeup.estimate)],
-      ['outcome jump', cellOf(r.jump.estimate)],
-      ['eligible side', r.eligible],
+      ...estimateRows(r.effect),
+      ['takeup', cellOf(r.takeup.estimate)],
+      ['jump', cellOf(r.jump.estimate)],
+      ['eligible', r.eligible],
       ...commonRows(r),
     ]);
   });

@@ -36,6 +36,6 @@ export function jump(
     const c = prepareCall('JUMP', { ranges: ranges(['score', score], ['values', values]), cutoff, bandwidth, settings, settingsPosition: 4, detail }, invocation);
     const r = c.result(() => outcomeJump(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
     if (!c.detail) return single('JUMP', r.estimate);
-    return table([...estimateRows('jump', r, c.settings.level), ['eligible side', r.eligible], ...commonRows(r)]);
+    return table([...estimateRows(r), ['eligible', r.eligible], ...commonRows(r)]);
   });
 }

@@ -39,6 +39,6 @@ export function takeup(
     );
     const r = c.result(() => takeupJump(c.cols[0].values, c.cols[1].values, c.cutoff, c.opts));
     if (!c.detail) return single('TAKEUP', r.estimate);
-    return table([...estimateRows('take-up jump', r, c.settings.level), ['eligible side', r.eligible], ...commonRows(r)]);
+    return table([...estimateRows(r), ['eligible', r.eligible], ...commonRows(r)]);
   });
 }

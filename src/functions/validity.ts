@@ -25,27 +25,26 @@ function present(c: PreparedCall): Matrix {
   if (!r.applicable) throw excelError('#N/A', `CUTLINE.VALIDITY: the test does not apply: ${r.reason}`);
   if (!c.detail) return single('VALIDITY', r.pvalue);
   const o = r.observed;
-  const arm = o.worst.arm === 1 ? 'treated' : 'untreated';
   const rows: Row[] = [
-    ['p-value', cellOf(r.pvalue)],
-    ['verdict at 5%', r.rejects ? 'the data contradict the design' : 'the data do not contradict the design'],
-    ['decided by', r.decided_by === 'trend_adjusted' ? 'the trend-adjusted test' : r.decided_by === 'observed' ? 'the test on the observed outcomes' : 'both tests'],
-    ['trend guard', r.guard],
-    ['p-value, observed outcomes', cellOf(o.pvalue)],
-    ['p-value, trend-adjusted outcomes', r.trend_adjusted ? cellOf(r.trend_adjusted.pvalue) : 'not run'],
-    ['statistic (observed)', cellOf(o.statistic)],
-    ['5% critical value (observed)', cellOf(o.critical_value)],
+    ['pvalue', cellOf(r.pvalue)],
+    ['rejects', r.rejects],
+    ['decided_by', r.decided_by],
+    ['trend_guard', r.guard],
+    ['pvalue_observed', cellOf(o.pvalue)],
+    ['pvalue_trend_adjusted', r.trend_adjusted ? cellOf(r.trend_adjusted.pvalue) : 'not run'],
+    ['statistic', cellOf(o.statistic)],
+    ['critical_value', cellOf(o.critical_value)],
     ['intervals', o.intervals],
     ['draws', o.draws],
     ['seed', o.seed],
-    ['worst interval: arm', arm],
-    ['worst interval: from', cellOf(o.worst.from)],
-    ['worst interval: to', cellOf(o.worst.to)],
-    ['worst interval: t', cellOf(o.worst.t)],
+    ['worst_arm', o.worst.arm === 1 ? 'treated' : 'untreated'],
+    ['worst_from', cellOf(o.worst.from)],
+    ['worst_to', cellOf(o.worst.to)],
+    ['worst_t', cellOf(o.worst.t)],
   ];
   for (const b of r.by_bandwidth) {
     if (b.multiple === 1) continue;
-    rows.push([`p-value at ${b.multiple} × bandwidth`, b.pvalue !== undefined ? cellOf(b.pvalue) : (b.error ?? b.reason ?? 'not computed')]);
+    rows.push([`pvalue_at_${b.multiple}`, b.pvalue !== undefined ? cellOf(b.pvalue) : (b.error ?? b.reason ?? 'not computed')]);
   }
   return table([...rows, ...commonRows(r)]);
 }

@@ -17,7 +17,7 @@ import { Cell } from './table';
 export interface Settings {
   kernel?: KernelName;
   variance?: VarianceName;
-  rule?: BandwidthRule;
+  rule?: BandwidthRule | 'typed';
   eligible?: 'above' | 'below';
   level?: number;
   donut?: number;
@@ -29,7 +29,6 @@ export interface Settings {
   sensitivity?: number[];
   densityBin?: number;
   densityBandwidth?: number;
-  purpose?: 'estimate' | 'test';
   trendGuard?: 'on' | 'off';
 }
 
@@ -45,7 +44,8 @@ export const SETTINGS: ReadonlyArray<{ name: string; field: keyof Settings; kind
     kind: { choices: VARIANCE_NAMES.filter((v) => v !== 'cluster') },
     meaning: `standard errors: nearest-neighbour or heteroskedasticity-robust (${VARIANCE_NAMES.find((v) => v !== 'cluster' && !v.startsWith('hc'))})`,
   },
-  { name: 'rule', field: 'rule', kind: { choices: BANDWIDTH_RULES }, meaning: 'bandwidth rule when no bandwidth is typed (mse)' },
+  // "typed" (as a summary sheet records a typed bandwidth) leaves the choice to the bandwidth argument.
+  { name: 'rule', field: 'rule', kind: { choices: [...BANDWIDTH_RULES, 'typed'] }, meaning: 'bandwidth rule when no bandwidth is typed (mse); "typed": the bandwidth argument is used' },
   { name: 'eligible', field: 'eligible', kind: { choices: ['above', 'below'] }, meaning: 'side of the cutoff offered the treatment (read from the take-up jump)' },
   { name: 'level', field: 'level', kind: { number: 'level' }, meaning: 'confidence level of the intervals (0.95)' },
   { name: 'donut', field: 'donut', kind: { number: 'positive' }, meaning: 'leave out units with |score − cutoff| below this (none)' },
@@ -58,7 +58,6 @@ export const SETTINGS: ReadonlyArray<{ name: string; field: keyof Settings; kind
   { name: 'sensitivity', field: 'sensitivity', kind: { list: true }, meaning: 'multiples of the test bandwidth to rerun the validity test at, e.g. "0.5,1,2" (none)' },
   { name: 'density bin', field: 'densityBin', kind: { number: 'positive' }, meaning: "bin width of McCrary's density test (rule of thumb)" },
   { name: 'density bandwidth', field: 'densityBandwidth', kind: { number: 'positive' }, meaning: "bandwidth of McCrary's density test (rule of thumb)" },
-  { name: 'purpose', field: 'purpose', kind: { choices: ['estimate', 'test'] }, meaning: 'BANDWIDTH: of the estimates, or of the validity test (estimate)' },
 ];
 
 const squeeze = (s: string): string => s.toLowerCase().replace(/[\s_-]+/g, '');

@@ -45,12 +45,12 @@ export function effect(d: { score: string; treated: string; outcome: string }, s
 
 /** The rule's bandwidth for the complier effect of an outcome (the settings name the rule). */
 export function bandwidth(d: { score: string; treated: string; outcome: string }, s: Omit<SettingRefs, 'bandwidth'>): string {
-  return call('BANDWIDTH', [d.score, d.outcome, s.cutoff, s.settings, d.treated]);
+  return call('BANDWIDTH', [d.score, d.outcome, s.cutoff, d.treated, '"estimate"', s.settings]);
 }
 
 /** The validity test's default bandwidth (undersmoothed mse of the take-up jump). */
 export function testBandwidth(d: { score: string; treated: string }, s: Omit<SettingRefs, 'bandwidth'>): string {
-  return call('BANDWIDTH', [d.score, d.treated, s.cutoff, s.settings, d.treated, '"test"']);
+  return call('BANDWIDTH', [d.score, d.treated, s.cutoff, d.treated, '"test"', s.settings]);
 }
 
 /** Headline p-value of the outcome–treatment test; `testBandwidth` is the test's own bandwidth cell. */
@@ -62,9 +62,9 @@ export function densityTest(d: { score: string }, s: SettingRefs): string {
   return call('DENSITYTEST', [d.score, s.cutoff, s.settings]);
 }
 
-/** The covariate's jump p-value at its own bandwidth (the rule in the settings). */
+/** The covariate's jump p-value at its own bandwidth (the rule in the settings; the bandwidth argument left empty). */
 export function balance(d: { score: string; covariate: string }, s: SettingRefs): string {
-  return call('BALANCE', [d.score, d.covariate, s.cutoff, s.settings]);
+  return call('BALANCE', [d.score, d.covariate, s.cutoff, '', s.settings]);
 }
 
 /** Binned means (spills a table from its cell). */

@@ -31,13 +31,13 @@ const SIGNATURES: Record<string, string[]> = {
   JUMP: ['score', 'values', 'cutoff', 'bandwidth?', 'settings?', 'detail?'],
   TAKEUP: ['score', 'treated', 'cutoff', 'bandwidth?', 'settings?', 'detail?'],
   EFFECT: ['score', 'treated', 'outcome', 'cutoff', 'bandwidth?', 'settings?', 'detail?'],
-  BANDWIDTH: ['score', 'values', 'cutoff', 'treated?', 'settings?', 'detail?'],
+  BANDWIDTH: ['score', 'values', 'cutoff', 'treated?', 'purpose?', 'settings?', 'detail?'],
   COMPLIERCDF: ['score', 'treated', 'outcome', 'cutoff', 'at', 'arm', 'bandwidth?', 'settings?', 'detail?'],
   COMPLIERDENSITY: ['score', 'treated', 'outcome', 'cutoff', 'at', 'arm', 'bandwidth?', 'settings?', 'detail?'],
   VALIDITY: ['score', 'treated', 'outcome', 'cutoff', 'bandwidth?', 'settings?', 'detail?'],
   DENSITYTEST: ['score', 'cutoff', 'settings?', 'detail?'],
   BALANCE: ['score', 'covariate', 'cutoff', 'bandwidth?', 'settings?', 'detail?'],
-  BINS: ['score', 'values', 'cutoff', 'settings?', 'detail?'],
+  BINS: ['score', 'values', 'cutoff', 'bandwidth?', 'settings?', 'detail?'],
 };
 const RANGES = new Set(['score', 'values', 'treated', 'outcome', 'covariate', 'settings', 'at']);
 
