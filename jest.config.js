@@ -1,6 +1,11 @@
 /** Jest: TypeScript tests through ts-jest, without type-checking per file (tsc does that in `npm run lint`). */
-/** Packages that ship only ES modules, reached through office-addin-mock → office-addin-manifest. */
-const ESM_ONLY = ['strip-bom', 'uuid', 'node-fetch', 'data-uri-to-buffer', 'fetch-blob', 'formdata-polyfill'];
+
+/**
+ * Packages that ship ES modules only, turned into CommonJS by esbuild as Jest loads them
+ * (test/helpers/esmTransform.js): d3 (the report writers) and office-addin-mock's
+ * office-addin-manifest dependencies (uuid, strip-bom, node-fetch and theirs).
+ */
+const ESM_ONLY = ['d3-[^/]+', 'internmap', 'strip-bom', 'uuid', 'node-fetch', 'data-uri-to-buffer', 'fetch-blob', 'formdata-polyfill'].join('|');
 
 module.exports = {
   testEnvironment: 'node',
@@ -8,13 +13,10 @@ module.exports = {
   testMatch: ['**/*.test.ts'],
   transform: {
     '^.+\\.ts$': ['ts-jest', { isolatedModules: true, diagnostics: false }],
-    // d3 ships ES modules only: turned into CommonJS by esbuild (test/helpers/esmTransform.js).
-    '/node_modules/(d3-[^/]+|internmap)/.+\\.m?js$': '<rootDir>/test/helpers/esmTransform.js',
-    // Dependencies of office-addin-mock published only as ES modules (see the file).
-    '^.+\\.m?js$': '<rootDir>/test/helpers/esmToCommonjs.cjs',
+    [`/node_modules/(${ESM_ONLY})/.+\\.m?js$`]: '<rootDir>/test/helpers/esmTransform.js',
   },
-  // Ignored: a file under node_modules unless it is d3's or belongs to one of those packages (at any depth).
-  transformIgnorePatterns: [`/node_modules/(?!(d3-[^/]+|internmap)/)(?!.*/node_modules/(${ESM_ONLY.join('|')})/)(?!(${ESM_ONLY.join('|')})/)`],
+  // Ignored: a file under node_modules unless it belongs to one of those packages (at any depth).
+  transformIgnorePatterns: [`/node_modules/(?!.*/node_modules/(${ESM_ONLY})/)(?!(${ESM_ONLY})/)`],
   reporters: ['default', '<rootDir>/test/summaryReporter.js'],
   testTimeout: 60000,
 };

@@ -13,6 +13,7 @@ const benches: Array<[string, string[]]> = [
   ['bench/tiesBench.ts', []],
   ['bench/validityBench.ts', []],
   ['bench/densityBench.ts', []],
+  ['bench/functionsBench.ts', []],
   ['bench/batchBench.ts', quick ? ['8', '1000'] : []],
   ['bench/validityMonteCarlo.ts', quick ? ['--quick'] : []],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],

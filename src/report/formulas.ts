@@ -25,31 +25,8 @@ export interface SettingRefs {
 
 const call = (fn: string, args: string[]): string => `CUTLINE.${fn}(${args.join(', ')})`;
 
-/**
- * The labels of the worksheet functions' `detail` tables (src/functions/detail.ts and each function's
- * rows), by the names the summary uses. A name the functions do not give has no live formula.
- */
-export const DETAIL_LABELS: Record<string, string> = {
-  se: 'standard error',
-  ci_low: '95% interval, low',
-  ci_high: '95% interval, high',
-  ci_robust_low: 'robust 95% interval, low',
-  ci_robust_high: 'robust 95% interval, high',
-  pvalue: 'p-value (robust)',
-  statistic: 'statistic (observed)',
-  critical_value: '5% critical value (observed)',
-  takeup: 'take-up jump',
-  pvalue_observed: 'p-value, observed outcomes',
-  pvalue_trend_adjusted: 'p-value, trend-adjusted outcomes',
-  intervals: 'intervals',
-  draws: 'draws',
-  bandwidth: 'bandwidth',
-};
-
-/** A field of a function's detail table, by name (e.g. 'se', 'pvalue'); undefined when the functions do not give it. */
-export function detailField(formula: string, name: string): string | undefined {
-  const label = DETAIL_LABELS[name];
-  if (label === undefined) return undefined;
+/** A field of a function's detail table, by label (e.g. 'se', 'pvalue'). */
+export function detailField(formula: string, label: string): string {
   const withDetail = formula.replace(/\)$/, ', TRUE)');
   return `VLOOKUP("${label}", ${withDetail}, 2, FALSE)`;
 }
@@ -68,16 +45,16 @@ export function effect(d: { score: string; treated: string; outcome: string }, s
 
 /** The rule's bandwidth for the complier effect of an outcome (the settings name the rule). */
 export function bandwidth(d: { score: string; treated: string; outcome: string }, s: Omit<SettingRefs, 'bandwidth'>): string {
-  return call('BANDWIDTH', [d.score, d.outcome, s.cutoff, d.treated, s.settings]);
+  return call('BANDWIDTH', [d.score, d.outcome, s.cutoff, d.treated, '"estimate"', s.settings]);
 }
 
 /**
- * The validity test's default bandwidth (undersmoothed mse of the take-up jump): `settings` is the
- * settings range extended by the row `purpose = test`, which asks BANDWIDTH for the test's bandwidth.
+ * The validity test's default bandwidth (undersmoothed mse of the take-up jump). Its pilot is the rule's
+ * bandwidth of the first outcome's effect, as in the check, so `values` is that outcome (with the take-up
+ * column itself as `values` the effect's rule has nothing to choose from: #N/A).
  */
 export function testBandwidth(d: { score: string; treated: string; outcome: string }, s: Omit<SettingRefs, 'bandwidth'>): string {
-  // Its pilot is the rule's bandwidth of the first outcome's effect, as in the check.
-  return call('BANDWIDTH', [d.score, d.outcome, s.cutoff, d.treated, s.settings]);
+  return call('BANDWIDTH', [d.score, d.outcome, s.cutoff, d.treated, '"test"', s.settings]);
 }
 
 /** Headline p-value of the outcome–treatment test; `testBandwidth` is the test's own bandwidth cell. */
@@ -89,15 +66,14 @@ export function densityTest(d: { score: string }, s: SettingRefs): string {
   return call('DENSITYTEST', [d.score, s.cutoff, s.settings]);
 }
 
-/** The covariate's jump p-value at its own bandwidth (the rule in the settings). */
+/** The covariate's jump p-value at its own bandwidth (the rule in the settings; the bandwidth argument left empty). */
 export function balance(d: { score: string; covariate: string }, s: SettingRefs): string {
-  // No bandwidth argument (left empty): the covariate's own, by the rule in the settings.
   return call('BALANCE', [d.score, d.covariate, s.cutoff, '', s.settings]);
 }
 
 /** Binned means (spills a table from its cell). */
 export function bins(d: { score: string; values: string }, s: SettingRefs): string {
-  return call('BINS', [d.score, d.values, s.cutoff, s.settings]);
+  return call('BINS', [d.score, d.values, s.cutoff, s.bandwidth, s.settings]);
 }
 
 /** Implied complier CDF at the values `at` (a range), arm 1 treated or 0 untreated (spills). */

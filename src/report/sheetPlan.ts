@@ -155,8 +155,7 @@ export function liveExpectations(m: SummaryModel, layout: SummaryModel, cells: R
   for (const t of m.plotTables) {
     const place = plots.find((p) => p.id === t.id);
     if (!place || !t.id.startsWith('bins:')) continue;
-    // BINS spills its header, then midpoint, mean, units and side of each bin.
-    ['bin midpoint', 'mean', 'units', 'side'].forEach((h, i) => out.push({ address: a1(place.row, i), value: h }));
+    // BINS spills its header, then midpoint, mean, count and side of each bin.
     t.rows.forEach((r, j) =>
       [r[3].value, r[4].value, r[5].value, r[0].value].forEach((v, i) => {
         if (v !== null) out.push({ address: a1(place.row + 1 + j, i), value: v });
@@ -289,7 +288,7 @@ const GRID = 30;
 
 /**
  * The tables behind the charts, each a spilling formula with the area kept
- * free below it: BINS (its header, one row per bin: midpoint, mean, units,
+ * free below it: BINS (its header, one row per bin: midpoint, mean, count,
  * side, then its notes), and for each outcome an even grid of its values
  * (formulas on the data) with COMPLIERCDF of the treated and the untreated
  * compliers at those values (each spills one value per grid point).

@@ -97,8 +97,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     address: at(),
   };
   if (r.test_bandwidth.rule !== 'typed') {
-    // The settings range and the row below it (purpose = test).
-    testCell.formula = F.testBandwidth(firstOutcome, { cutoff: cutoffCell.address, settings: `${F.cellAddress(optionsStart, 0)}:${F.cellAddress(optionsEnd + 1, 1)}` });
+    testCell.formula = F.testBandwidth(firstOutcome, { cutoff: cutoffCell.address, settings: settingsRange });
   }
   row = optionsStart;
   const opt = (key: string, label: string, value: number | string, format: CellFormat = 'text'): SettingRow => ({ key, label, value, format, address: at() });
@@ -117,7 +116,6 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     opt('multiplier', 'Multipliers of the test', v.multiplier),
     opt('trend_guard', 'The test also run with each side’s trend removed (the larger p-value counts)', ctx.options.trendGuard === false ? 'off' : 'on'),
     opt('sensitivity', 'Multiples of the test bandwidth shown', sensitivity.length ? sensitivity.join(', ') : 'off'),
-    opt('purpose', 'Read by the test bandwidth’s formula only (its settings range takes this row too)', 'test'),
   ];
   const refs: F.SettingRefs = { cutoff: cutoffCell.address, bandwidth: bwCell.address, settings: settingsRange };
 
@@ -151,7 +149,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
     rows: [
       estimateRow('Take-up jump (first stage)', r.takeup, F.takeup({ score, treated }, refs)),
       ...r.outcomes.flatMap((o) => [
-        ownTakeupRow(`${o.name}: take-up jump on its rows`, o.takeup, F.detailField(F.effect(od(o), refs), 'takeup')!),
+        ownTakeupRow(`${o.name}: take-up jump on its rows`, o.takeup, F.detailField(F.effect(od(o), refs), 'takeup')),
         estimateRow(`${o.name}: jump at the cutoff`, o.jump, F.jump({ score, values: col(o.name) }, refs)),
         estimateRow(`${o.name}: effect for compliers`, o.effect, F.effect(od(o), refs)),
       ]),
@@ -253,9 +251,11 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
       columns: ['outcome', 'treated compliers', 'untreated compliers'],
       rows: withCompliers.map((o) => [
         text(o.name),
-        cell(o.compliers!.mean_treated, 'number', F.detailField(F.effect(od(o), refs), 'mean_treated')),
-        cell(o.compliers!.mean_untreated, 'number', F.detailField(F.effect(od(o), refs), 'mean_untreated')),
+        cell(o.compliers!.mean_treated, 'number'),
+        cell(o.compliers!.mean_untreated, 'number'),
       ]),
+      // No worksheet function gives these means (EFFECT's detail table has none): values, not formulas.
+      note: 'Means implied by the complier distributions at the cutoff; computed by the check (no worksheet function gives them).',
     });
   }
 
