@@ -190,6 +190,7 @@ async function run(): Promise<void> {
       ...done.verdicts.map((v) => Object.assign(document.createElement('li'), { textContent: v.text, className: v.concern ? 'concern' : 'fine' })),
     );
     $('verdicts').hidden = false;
+    $('live-hint').textContent = `The sheet’s results are live formulas: type a new cutoff into ${done.plan.cutoffCell} of “${done.sheet}” and they recalculate.`;
     $('pane-status').textContent = `The summary is on the sheet “${done.sheet}”.`;
   } catch (e) {
     if (isCancel(e)) {

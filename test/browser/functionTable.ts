@@ -86,6 +86,41 @@ function excelCell(v: unknown): unknown {
 /** Where a formula may spill: the workbook sets the areas it keeps free ("sheetId:row:col" → size). */
 export type SpillHints = Map<string, { rows: number; cols: number }>;
 
+const bits = new Float64Array(1);
+const words = new Uint32Array(bits.buffer);
+
+/** A key for a call's arguments: a 64-bit hash of every cell (a copy of 6000-row ranges as JSON at each call would be slow). */
+export function argsKey(args: unknown[]): string {
+  let a = 0x811c9dc5;
+  let b = 0x9747b28c;
+  const mix = (x: number): void => {
+    a = Math.imul(a ^ x, 0x01000193);
+    b = Math.imul(b ^ x, 0x5bd1e995);
+  };
+  const cell = (v: unknown): void => {
+    if (typeof v === 'number') {
+      bits[0] = v;
+      mix(words[0]);
+      mix(words[1]);
+    } else {
+      const s = v === null || v === undefined ? '\u0000' : typeof v === 'object' ? JSON.stringify(v) : `${typeof v}:${String(v)}`;
+      mix(s.length + 0x9e3779b1);
+      for (let i = 0; i < s.length; i++) mix(s.charCodeAt(i));
+    }
+  };
+  for (const arg of args) {
+    mix(0x7f4a7c15);
+    if (Array.isArray(arg)) {
+      mix(arg.length);
+      for (const row of arg as unknown[][]) {
+        mix(row.length);
+        for (const v of row) cell(v);
+      }
+    } else cell(arg);
+  }
+  return `${(a >>> 0).toString(36)}:${(b >>> 0).toString(36)}`;
+}
+
 /** Results of asynchronous calls, by function and arguments. */
 const settled = new Map<string, unknown>();
 const pending = new Map<string, Promise<unknown>>();
@@ -101,8 +136,14 @@ export async function settleAll(recalc: () => void, progress?: (done: number, to
     if (cancelled?.()) return;
     const now = [...pending.values()];
     seen = Math.max(seen, now.length);
-    // One call at a time, so that a cancel is heard between them.
-    await Promise.race(now);
+    // The whole batch, then one recalculation; a cancel is heard every 100 ms meanwhile.
+    let poll: ReturnType<typeof setInterval> | undefined;
+    const cancel = new Promise<void>((resolve) => {
+      poll = setInterval(() => cancelled?.() && resolve(), 100);
+    });
+    await Promise.race([Promise.allSettled(now), cancel]);
+    clearInterval(poll);
+    if (cancelled?.()) return;
     recalc();
     progress?.(seen - pending.size, Math.max(1, seen));
   }
@@ -151,7 +192,7 @@ export function registerCutline(table: Map<string, CustomFunction>, meta: Functi
           return v === undefined || v === EmptyValue ? null : excelCell(v);
         });
         const invocation = { parameterAddresses: f.parameters.map(() => ''), onCanceled: undefined };
-        const key = `${id}|${JSON.stringify(excelArgs)}`;
+        const key = `${id}|${argsKey(excelArgs)}`;
         let out: unknown;
         if (settled.has(key)) out = settled.get(key);
         else {

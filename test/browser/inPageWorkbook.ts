@@ -120,10 +120,11 @@ export class InPageWorkbook implements WorkbookPort {
         progress(k + 1, total, `Writing the sheet (${Math.min((k + 1) * CHUNK, plan.cells.length)} of ${plan.cells.length} cells)…`);
         await new Promise((r) => setTimeout(r, 0));
       }
+      // Named while the evaluation waits: each name added later would recalculate the (volatile) functions.
+      for (const n of plan.names) this.hf.addNamedExpression(n.name, `='${plan.sheet}'!$${n.address.replace(/(\d+)$/, '$$$1')}`, id);
     } finally {
       if (this.hf.isEvaluationSuspended()) this.hf.resumeEvaluation();
     }
-    for (const n of plan.names) this.hf.addNamedExpression(n.name, `='${plan.sheet}'!$${n.address.replace(/(\d+)$/, '$$$1')}`, id);
     this.charts.set(plan.sheet, plan.charts);
     this.formats.set(plan.sheet, new Map(plan.cells.map((c) => [c.address, c])));
     progress(total, total, 'Drawing the charts…');
