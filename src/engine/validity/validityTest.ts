@@ -214,7 +214,7 @@ function momentsFor(
     u += side.index.length;
   }
   const cls = intervalClass(ys, r.grid);
-  if (cls.distinct < 2)
+  if (cls.singleValues && cls.distinct < 2)
     throw new CutlineError(
       `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${fmt(o.bandwidth)}); ` +
         `the validity test needs an outcome that varies there — widen the bandwidth`,
