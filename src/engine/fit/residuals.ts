@@ -74,9 +74,9 @@ export function neighbourResiduals(side: SortedSide, values: ArrayLike<number>, 
  * for each group the J-th smallest distance to the other units is found by
  * walking outwards over groups (each holds at least one unit, so at most J
  * groups are visited), every group within that distance (up to 1e-12
- * relative) is found by binary search, and the neighbour mean of each unit is
+ * relative) is found by walking on from there, and the neighbour mean of each unit is
  * (sum of those groups − its own V)/(their count − 1). The cost is O(n) plus
- * O(J + log n) per distinct score, whatever the ties: the earlier unit-by-unit
+ * O(J) per distinct score, whatever the ties: the earlier unit-by-unit
  * walk cost n × (size of the largest tie group). Sums within a group are
  * compensated (Neumaier) so that a large group's sum minus one value keeps
  * the precision of a direct sum.
@@ -109,45 +109,37 @@ function computeNeighbourResiduals(side: SortedSide, values: ArrayLike<number>, 
     t = u;
   }
   start[G] = n;
-  const value = (g: number): number => x[start[g]];
-  const size = (g: number): number => start[g + 1] - start[g];
+  // Each group's score (x is sorted, so these ascend).
+  const gx = new Float64Array(G);
+  for (let g = 0; g < G; g++) gx[g] = x[start[g]];
   for (let g = 0; g < G; g++) {
-    const xg = value(g);
+    const xg = gx[g];
     // The jj-th smallest distance from a unit of group g to the others.
-    let need = jj - (size(g) - 1);
+    let need = jj - (start[g + 1] - start[g] - 1);
     let last = 0;
     let l = g - 1;
     let r = g + 1;
     while (need > 0) {
       // The closer of the next group on the left and on the right (left on a tie, as both are taken below).
-      if (r >= G || (l >= 0 && xg - value(l) <= value(r) - xg)) {
-        last = xg - value(l);
-        need -= size(l--);
+      if (r >= G || (l >= 0 && xg - gx[l] <= gx[r] - xg)) {
+        last = xg - gx[l];
+        need -= start[l + 1] - start[l];
+        l--;
       } else {
-        last = value(r) - xg;
-        need -= size(r++);
+        last = gx[r] - xg;
+        need -= start[r + 1] - start[r];
+        r++;
       }
     }
     // Every group as far as the jj-th neighbour, up to rounding (1e-12 relative:
     // equal spacings of a grid differ in their last bits, and the choice must
-    // not depend on the score's scale).
+    // not depend on the score's scale). The groups walked over are within it;
+    // the search goes on outwards from them (distances grow monotonically).
     const reach = last + last * 1e-12;
-    let lo = 0;
-    let hi = g; // first group with xg − value ≤ reach, in [0, g]
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (xg - value(mid) <= reach) hi = mid;
-      else lo = mid + 1;
-    }
-    const first = lo;
-    lo = g;
-    hi = G - 1; // last group with value − xg ≤ reach, in [g, G − 1]
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (value(mid) - xg <= reach) lo = mid;
-      else hi = mid - 1;
-    }
-    const lastGroup = lo;
+    let first = l + 1;
+    while (first > 0 && xg - gx[first - 1] <= reach) first--;
+    let lastGroup = r - 1;
+    while (lastGroup < G - 1 && gx[lastGroup + 1] - xg <= reach) lastGroup++;
     let total = 0;
     for (let k = first; k <= lastGroup; k++) total += sums[k];
     const count = start[lastGroup + 1] - start[first] - 1;
