@@ -97,3 +97,21 @@ export function valuesAt(index: Int32Array, values: ArrayLike<number>, view?: Or
   for (let t = 0; t < index.length; t++) out[t] = values[index[t]];
   return out;
 }
+
+/**
+ * The columns in the handle's sorted order (each gathered once and kept, as
+ * valuesAt does), or undefined for a plain array or a handle not yet sorted.
+ * With keepGathered, a column derived elementwise from others (the trend
+ * guard's outcomes) is computed along the sorted order by sequential reads
+ * instead of gathered afterwards by random ones.
+ */
+export function gatheredColumns(score: ArrayLike<number>, columns: ArrayLike<number>[]): Float64Array[] | undefined {
+  if (!(score instanceof IndexedScore) || !score.sorted) return undefined;
+  const view: OrderView = { sorted: score.sorted, start: 0 };
+  return columns.map((c) => valuesAt(score.sorted!.order, c, view));
+}
+
+/** Keeps `sortedCopy` (values[order[t]] at t, computed by the caller) as the handle's gathered copy of `values`. */
+export function keepGathered(score: ArrayLike<number>, values: Float64Array, sortedCopy: Float64Array): void {
+  if (score instanceof IndexedScore && score.sorted && sortedCopy.length === score.sorted.order.length) score.sorted.columns.set(values, sortedCopy);
+}

@@ -26,6 +26,8 @@
  *   t.above.slope; t.above.curvature; // β̂₁, β̂₂ above the cutoff
  */
 
+import { gatheredColumns, keepGathered } from '../data';
+
 export interface SideTrend {
   /** β̂₀ (the side's fitted value at the cutoff), β̂₁, β̂₂ in the score's and outcome's units. */
   intercept: number;
@@ -271,6 +273,18 @@ export function trendRemoved(score: ArrayLike<number>, outcome: ArrayLike<number
     const x = score[i] - cutoff;
     const f = x >= 0 ? above : below;
     values[i] = outcome[i] - (f.slope * x + f.curvature * x * x);
+  }
+  // On a score handle the test reads Ỹ in sorted order: computed so from the sorted score and outcome (the same operations per unit).
+  const sorted = rows ? undefined : gatheredColumns(score, [score, outcome]);
+  if (sorted) {
+    const [r, y] = sorted;
+    const copy = new Float64Array(r.length);
+    for (let t = 0; t < r.length; t++) {
+      const x = r[t] - cutoff;
+      const f = x >= 0 ? above : below;
+      copy[t] = y[t] - (f.slope * x + f.curvature * x * x);
+    }
+    keepGathered(score, values, copy);
   }
   return { values, below, above };
 }
