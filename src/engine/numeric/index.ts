@@ -8,4 +8,6 @@ export { holmAdjust } from './holm';
 export { invertSmall } from './linalg';
 export { normalQuantile, twoSidedPvalue } from './normal';
 export { orderStatistics } from './orderStatistics';
+export { rankLookup, rankOf } from './rankLookup';
+export type { RankLookup } from './rankLookup';
 export { Random } from './random';

@@ -12,15 +12,16 @@
  *
  * Cost: a few linear passes (distinct values counted up to G + 1, the cut
  * points by selection, not a sort of the window); a unit's bin is then read
- * from a table of equal-width buckets over the window's range (a binary
- * search among the cut points only in the few buckets that hold one).
+ * from a table of equal-width buckets over the window's range
+ * (numeric/rankLookup.ts; a binary search only in the few buckets that hold a
+ * cut point).
  *
  * @example
  *   const cls = intervalClass(Float64Array.of(3, 1, 2, 2), 30);
  *   cls.bins; // 3, single values 1, 2, 3
  *   binOf(cls, 2); // 1
  */
-import { orderStatistics } from '../numeric';
+import { orderStatistics, rankLookup, RankLookup, rankOf, searchSorted } from '../numeric';
 
 export interface IntervalClass {
   /** Number of non-empty bins G′. */
@@ -35,29 +36,8 @@ export interface IntervalClass {
   /** N and m of the window (m counted on demand when it exceeds G). */
   count: number;
   distinct: number;
-  /** Bin lookup by bucket: bucket j = ⌊(y − lookupFrom)·lookupScale⌋ holds bin lookup[j], or −1 when a cut point falls in it. */
-  lookup?: Int32Array;
-  lookupFrom?: number;
-  lookupScale?: number;
-}
-
-/** Buckets of the bin lookup (a table small enough to stay in the first-level cache). */
-const LOOKUP_BUCKETS = 4096;
-
-/**
- * The bin of every value whose bucket holds no cut point, by bucket. The
- * bucket is monotone in the value, so a value in bucket j lies above every
- * cut point of an earlier bucket and at or below every cut point of a later
- * one: its bin is the number of cut points in earlier buckets.
- */
-function binLookup(upper: Float64Array, from: number, scale: number): Int32Array {
-  const table = new Int32Array(LOOKUP_BUCKETS);
-  let k = 0;
-  for (let j = 0; j < LOOKUP_BUCKETS; j++) {
-    while (k < upper.length && Math.floor((upper[k] - from) * scale) < j) k++;
-    table[j] = k < upper.length && Math.floor((upper[k] - from) * scale) === j ? -1 : k;
-  }
-  return table;
+  /** The bins read from a table over the window's range (numeric/rankLookup.ts). */
+  lookup?: RankLookup;
 }
 
 /** The bins from the window's outcomes (any order) and the grid size G ≥ 2. */
@@ -94,11 +74,7 @@ export function intervalClass(outcomes: ArrayLike<number>, grid: number): Interv
   const binMin = new Float64Array(bins).fill(Infinity);
   const binMax = new Float64Array(bins).fill(-Infinity);
   const cls: IntervalClass = { bins, singleValues, upper, binMin, binMax, count: N, distinct: singleValues ? seen.size : 0 };
-  if (N > 0 && max > min && Number.isFinite(max - min)) {
-    cls.lookupFrom = min;
-    cls.lookupScale = (LOOKUP_BUCKETS - 1) / (max - min);
-    cls.lookup = binLookup(upper, min, cls.lookupScale);
-  }
+  if (N > 0) cls.lookup = rankLookup(upper, min, max);
   // Each bin's smallest and largest value in one pass; of −0 and 0 the −0 is kept (a sort puts it first).
   for (let t = 0; t < N; t++) {
     const y = outcomes[t];
@@ -125,23 +101,7 @@ function countDistinct(outcomes: ArrayLike<number>): number {
   return m;
 }
 
-/** The bin of outcome y: the number of upper bounds below y (from the lookup table when its bucket holds no cut point). */
+/** The bin of outcome y: the number of upper bounds below y (read from the lookup table when there is one). */
 export function binOf(cls: IntervalClass, y: number): number {
-  const table = cls.lookup;
-  if (table !== undefined) {
-    const j = Math.floor((y - cls.lookupFrom!) * cls.lookupScale!);
-    if (j >= 0 && j < LOOKUP_BUCKETS) {
-      const b = table[j];
-      if (b >= 0) return b;
-    }
-  }
-  const u = cls.upper;
-  let lo = 0;
-  let hi = u.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (u[mid] < y) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
+  return cls.lookup ? rankOf(cls.lookup, y) : searchSorted(cls.upper, y, false);
 }
