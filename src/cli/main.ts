@@ -72,6 +72,27 @@ function distinctRoles(input: CheckInput): void {
   });
 }
 
+/**
+ * The file's columns the check uses. The table (the file's bytes and field
+ * offsets, about twice the file's size) is dropped when this returns, before
+ * the check runs: only the columns stay.
+ */
+async function readInput(
+  file: string,
+  args: ParsedArgs,
+  names: { scoreName: string; treatedName: string; outcomeNames: string[]; clusterName?: string; withinName?: string },
+): Promise<CheckInput> {
+  const table = await readTable(file, one(args, 'sheet'));
+  return {
+    score: numericColumn(table, names.scoreName, 'score'),
+    treated: numericColumn(table, names.treatedName, 'treated'),
+    outcomes: names.outcomeNames.map((o) => numericColumn(table, o, 'outcome')),
+    covariates: (args.values.get('covariate') ?? []).map((c) => numericColumn(table, c, 'covariate')),
+    cluster: names.clusterName !== undefined ? labelColumn(table, names.clusterName, 'cluster') : undefined,
+    within: names.withinName !== undefined ? labelColumn(table, names.withinName, 'within') : undefined,
+  };
+}
+
 async function check(args: ParsedArgs): Promise<void> {
   const file = args.file;
   if (!file) throw new CutlineError('check needs an input FILE (CSV or XLSX)');
@@ -110,15 +131,7 @@ async function check(args: ParsedArgs): Promise<void> {
   const bins = args.flags.has('bins');
   if (bins && !args.flags.has('json')) throw new CutlineError('--bins adds the binned tables to the JSON document: use it with --json');
 
-  const table = await readTable(file, one(args, 'sheet'));
-  const input: CheckInput = {
-    score: numericColumn(table, scoreName, 'score'),
-    treated: numericColumn(table, treatedName, 'treated'),
-    outcomes: outcomeNames.map((o) => numericColumn(table, o, 'outcome')),
-    covariates: (args.values.get('covariate') ?? []).map((c) => numericColumn(table, c, 'covariate')),
-    cluster: clusterName !== undefined ? labelColumn(table, clusterName, 'cluster') : undefined,
-    within: withinName !== undefined ? labelColumn(table, withinName, 'within') : undefined,
-  };
+  const input = await readInput(file, args, { scoreName, treatedName, outcomeNames, clusterName, withinName });
   distinctRoles(input);
   if (variance === 'cluster' && input.cluster && input.cluster.labels.length < 2) {
     throw new CutlineError(
