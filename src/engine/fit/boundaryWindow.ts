@@ -18,6 +18,7 @@
 import { IndexedScore, lowerBound, OrderView, orderView, sortedOrder, valuesAt } from '../data';
 import { CutlineError } from '../errors';
 import { KernelName, kernelWeight } from './kernels';
+import type { NeighbourGroups } from './residuals';
 import { invertSmall, argsortBy, formatNumber } from '../numeric';
 
 
@@ -50,6 +51,8 @@ export interface SideMemo {
   /** Where the side's units sit in the score handle's sorted order (columns are then read as slices). */
   view?: OrderView;
   compliers: WeakMap<object, WeakMap<object, unknown>>;
+  /** The side's groups of equal scores and their neighbour runs (residuals.ts), found once. */
+  neighbours?: NeighbourGroups;
 }
 
 export function sideMemo(view?: OrderView): SideMemo {
