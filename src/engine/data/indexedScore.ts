@@ -13,7 +13,7 @@
  *   const s = indexScores(Float64Array.of(3, 1, 2));
  *   sortedOrder(s); // Int32Array [1, 2, 0], computed once for s
  */
-import { argsortBy, firstAtLeast } from '../numeric';
+import { argsortWithValues, firstAtLeast } from '../numeric';
 
 /** A sorted order with the columns gathered into it (read-only for every caller). */
 interface SortedOrder {
@@ -46,7 +46,11 @@ export function rememberedOn<V>(score: ArrayLike<number>, key: string, make: () 
 function makeOrder(score: ArrayLike<number>): SortedOrder {
   const all = new Int32Array(score.length);
   for (let i = 0; i < all.length; i++) all[i] = i;
-  return { order: argsortBy(score, all), columns: new WeakMap<object, Float64Array>() };
+  // The sort carries the scores along: they are the handle's gathered score column from the start.
+  const { order, sorted } = argsortWithValues(score, all);
+  const columns = new WeakMap<object, Float64Array>();
+  columns.set(score as object, sorted);
+  return { order, columns };
 }
 
 /** Positions of all units sorted by score (ties by position): once per handle, afresh for a plain array. */
