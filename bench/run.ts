@@ -13,6 +13,8 @@ const benches: Array<[string, string[]]> = [
   ['bench/tiesBench.ts', []],
   ['bench/validityBench.ts', []],
   ['bench/densityBench.ts', []],
+  ['bench/functionsBench.ts', []],
+  ['bench/batchBench.ts', quick ? ['8', '1000'] : []],
   ['bench/validityMonteCarlo.ts', quick ? ['--quick'] : []],
   ['bench/densityMonteCarlo.ts', [quick ? '400' : '2000']],
   ['bench/validitySizeBinding.ts', [quick ? '200' : '2000']],

@@ -38,24 +38,31 @@ export const CHECK_OPTIONS: Record<string, OptionSpec> = {
   bins: { value: false },
   out: { value: true },
   html: { value: true },
+  'out-dir': { value: true },
+  format: { value: true },
+  force: { value: false },
+  jobs: { value: true },
   json: { value: false },
 };
 
 export interface ParsedArgs {
   command: string;
+  /** The first input (FILE or folder). */
   file?: string;
+  /** Every input given, in order. */
+  files: string[];
   values: Map<string, string[]>;
   flags: Set<string>;
 }
 
 export function parseArgs(argv: string[], specs: Record<string, OptionSpec> = CHECK_OPTIONS): ParsedArgs {
   const [command, ...rest] = argv;
-  const out: ParsedArgs = { command: command ?? '', values: new Map(), flags: new Set() };
+  const out: ParsedArgs = { command: command ?? '', files: [], values: new Map(), flags: new Set() };
   for (let i = 0; i < rest.length; i++) {
     const a = rest[i];
     if (!a.startsWith('--')) {
-      if (out.file !== undefined) throw new CutlineError(`unexpected argument ${JSON.stringify(a)}: give one input FILE`);
-      out.file = a;
+      out.files.push(a);
+      out.file ??= a;
       continue;
     }
     const eq = a.indexOf('=');

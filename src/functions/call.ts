@@ -1,0 +1,164 @@
+/**
+ * What every worksheet function does around its one engine call: read the
+ * ranges through the input adapter (remembering each prepared column by a
+ * hash of its cells), read the bandwidth and the settings block, remember the
+ * result by columns, cutoff and settings, and turn any error into an Excel
+ * error value that names the argument and the first bad cell.
+ */
+import { EstimateOptions, ValidityOptions } from '../engine';
+import { RangeColumn, rangeColumns, RangeInputError } from '../input/range';
+import { readSettings, Settings } from '../input/settings';
+import { BoundedCache, hashCells, hashColumn } from './cache';
+import { excelError, toExcelError } from './excelError';
+
+/** The part of the runtime's invocation object Cutline reads. */
+export interface InvocationLike {
+  /** Addresses of the arguments ("Sheet1!B2:B6001"), when the runtime gives them (CustomFunctionsRuntime 1.3). */
+  parameterAddresses?: string[];
+  /** Set by a cancelable function; the runtime calls it when the result is no longer wanted. */
+  onCanceled?: () => void;
+}
+
+/** A range argument of a call: its name, its cells, its position among the parameters. */
+export interface RangeSpec {
+  argument: string;
+  cells: unknown[][];
+  position: number;
+  binary?: boolean;
+}
+
+/** The checked columns of a call, by the hash of its ranges' cells (about 0.9 MB a column at 100,000 rows). */
+const calls = new BoundedCache<string, RangeColumn[]>(16);
+/** One column array per content, by the hash of the checked column. */
+const columns = new BoundedCache<string, RangeColumn>(24);
+/** Results: small objects. */
+const results = new BoundedCache<string, unknown>(512);
+
+/** Forget everything (for tests and benchmarks that measure a cold start). */
+export function forgetAll(): void {
+  calls.clear();
+  columns.clear();
+  results.clear();
+}
+
+export function cacheSizes(): { calls: number; columns: number; results: number } {
+  return { calls: calls.size, columns: columns.size, results: results.size };
+}
+
+/** A key for the cells of a call's ranges: one quick pass over each (no checking), enough to find a remembered result. */
+export function rangesKey(specs: RangeSpec[]): string {
+  return specs
+    .map((s) => {
+      if (!Array.isArray(s.cells)) throw new RangeInputError(`${s.argument} must be a range of cells`, s.argument, 'shape');
+      return `${hashCells(s.cells)}|${s.binary ? 1 : 0}`;
+    })
+    .join('/');
+}
+
+/**
+ * Checked columns of one call, remembered by the call's cells (`key` from
+ * rangesKey); a column read afresh is replaced by the remembered column with
+ * the same contents when there is one, so that every call on the same data
+ * hands the engine the same arrays.
+ */
+export function readRanges(specs: RangeSpec[], key: string, invocation?: InvocationLike | null): RangeColumn[] {
+  return calls.get(key, () =>
+    rangeColumns(
+      specs.map((s) => ({ argument: s.argument, cells: s.cells, binary: s.binary, address: invocation?.parameterAddresses?.[s.position] })),
+    ).map((c) => columns.get(hashColumn(c.values, c.missing), () => c)),
+  );
+}
+
+/** A number argument: finite, or a #VALUE! error naming it. */
+export function numberArgument(argument: string, v: unknown): number {
+  const x = typeof v === 'string' && v.trim() !== '' ? Number(v) : v;
+  if (typeof x !== 'number' || !Number.isFinite(x)) {
+    throw new RangeInputError(`${argument} must be a number; it is ${v === null || v === undefined || v === '' ? 'empty' : JSON.stringify(v)}`, argument);
+  }
+  return x;
+}
+
+/** The optional bandwidth: a positive number when given. */
+export function bandwidthArgument(v: unknown): number | undefined {
+  if (v === null || v === undefined || v === '') return undefined;
+  const h = numberArgument('bandwidth', v);
+  if (h !== undefined && !(h > 0)) throw new RangeInputError(`bandwidth must be a positive number; it is ${h} (leave it empty for the data-driven bandwidth)`, 'bandwidth');
+  return h;
+}
+
+export function settingsArgument(cells: unknown, invocation: InvocationLike | null | undefined, position: number): Settings {
+  if (cells === null || cells === undefined || cells === '') return {};
+  if (!Array.isArray(cells)) throw new RangeInputError('settings must be a range of two columns (name, value)', 'settings', 'shape');
+  return readSettings(cells as unknown[][], 'settings', invocation?.parameterAddresses?.[position]);
+}
+
+export function flagArgument(v: unknown): boolean {
+  if (v === null || v === undefined || v === '') return false;
+  if (typeof v === 'boolean') return v;
+  if (typeof v === 'number') return v !== 0;
+  const s = String(v).trim().toUpperCase();
+  if (s === 'TRUE') return true;
+  if (s === 'FALSE') return false;
+  throw new RangeInputError(`detail must be TRUE or FALSE; it is ${JSON.stringify(v)}`, 'detail');
+}
+
+/** The engine's options from the typed bandwidth and the settings block. */
+export function engineOptions(bandwidth: number | undefined, s: Settings, missing: EstimateOptions['missing']): ValidityOptions {
+  return {
+    bandwidth,
+    rule: s.rule === 'typed' ? undefined : s.rule,
+    kernel: s.kernel,
+    variance: s.variance,
+    eligible: s.eligible,
+    donut: s.donut,
+    level: s.level,
+    draws: s.draws,
+    seed: s.seed,
+    grid: s.grid,
+    trim: s.trim,
+    multiplier: s.multiplier,
+    // The by-bandwidth table only when asked for: each multiple is a whole test more.
+    sensitivity: s.sensitivity ?? [],
+    trendGuard: s.trendGuard === undefined ? undefined : s.trendGuard === 'on',
+    missing,
+  };
+}
+
+/** A key for settings (in the order of SETTINGS' fields, which readSettings keeps). */
+export function settingsKey(s: Settings): string {
+  return JSON.stringify(Object.keys(s).sort().map((k) => [k, s[k as keyof Settings]]));
+}
+
+/** The result for `key`, computed once while remembered. */
+export function remembered<T>(key: string, compute: () => T): T {
+  return results.get(key, compute) as T;
+}
+
+export function isRemembered(key: string): boolean {
+  return results.peek(key) !== undefined;
+}
+
+/** Runs a function body; an error becomes the Excel error it should show. */
+export function guarded<T>(fn: string, body: () => T): T {
+  try {
+    return body();
+  } catch (e) {
+    throw toExcelError(fn, e);
+  }
+}
+
+export type Cell = number | string | boolean | CustomFunctions.Error;
+export type Matrix = Cell[][];
+
+/** A number for a cell: a non-finite one becomes #NUM!. */
+export function cellOf(v: number | string | boolean | undefined): Cell {
+  if (v === undefined) return '';
+  if (typeof v === 'number' && !Number.isFinite(v)) return excelError('#NUM!');
+  return v;
+}
+
+/** A single number as a 1×1 result; not finite → #NUM!. */
+export function single(fn: string, v: number): Matrix {
+  if (!Number.isFinite(v)) throw excelError('#NUM!', `CUTLINE.${fn}: the result is not a finite number`);
+  return [[v]];
+}

@@ -1,0 +1,61 @@
+/**
+ * CUTLINE.COMPLIERCDF: the implied distribution (CDF) of compliers'
+ * outcomes in one arm at the values `at` (Imbens & Rubin 1997 at a cutoff),
+ * by the engine's `complierCdfAt`. It spills one value per `at`. A CDF that
+ * falls is the picture of a violation of the design (or noise).
+ *
+ * @example =CUTLINE.COMPLIERCDF(C2:C6001, D2:D6001, E2:E6001, 60, J2:J26, 1)
+ */
+import { complierCdfAt } from '../engine';
+import { guarded, Matrix } from './call';
+import { armArgument, atArgument, curveMatrix } from './complierCurve';
+import { prepareCall, ranges } from './prepare';
+
+/**
+ * Implied distribution function of compliers' outcomes at the cutoff, at the given outcome values (spills).
+ * @customfunction COMPLIERCDF
+ * @param score Scores (running variable): one column; a title cell at the top is skipped.
+ * @param treated Treated or not (1/0 or TRUE/FALSE), the same rows as score.
+ * @param outcome Outcome values, the same rows as score.
+ * @param cutoff Cutoff of the score: units at or above it are on the upper side.
+ * @param at Outcome values where the distribution is wanted (a column or a row).
+ * @param arm 1 for treated compliers, 0 for untreated compliers.
+ * @param [bandwidth] Bandwidth around the cutoff; leave empty for the data-driven rule.
+ * @param [settings] Two-column range of settings (name, value), e.g. kernel, rule, eligible, donut.
+ * @param [detail] TRUE spills a table of outcome values and probabilities, then bandwidth, counts, rows, warnings.
+ * @param invocation Invocation (supplied by Excel).
+ * @returns One probability per value of at, in its shape; with detail, a two-column table.
+ * @requiresParameterAddresses
+ */
+export function compliercdf(
+  score: any[][],
+  treated: any[][],
+  outcome: any[][],
+  cutoff: number,
+  at: any[][],
+  arm: any,
+  bandwidth?: number,
+  settings?: any[][],
+  detail?: boolean,
+  invocation?: CustomFunctions.Invocation,
+): any[][] {
+  return guarded('COMPLIERCDF', (): Matrix => {
+    const a = atArgument(at, invocation);
+    const side = armArgument(arm);
+    const c = prepareCall(
+      'COMPLIERCDF',
+      {
+        ranges: ranges(['score', score], ['treated', treated, true], ['outcome', outcome]),
+        cutoff,
+        bandwidth,
+        settings,
+        settingsPosition: 7,
+        detail,
+        extraKey: `${a.key}|${side}`,
+      },
+      invocation,
+    );
+    const r = c.result(() => complierCdfAt(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, a.values, side, c.opts));
+    return curveMatrix(r, 'cdf', c.detail, a.row);
+  });
+}
