@@ -134,27 +134,33 @@ export function parseCheckSpec(args: ParsedArgs): CheckSpec {
 
 export interface CheckedFile {
   result: CheckResult;
-  /** The file's bytes and table, for the report writers (absent when `keepSource` was false). */
+  /** The file's bytes and table, for the report writers (absent when `keepSource` is false). */
   source?: SourceFile;
   names: { score: string; treated: string };
 }
 
 /**
- * Reads and checks one file; `bins` adds the plot data (reports and --json --bins need them).
- * Without `keepSource` (no report to write) the table — the file's bytes and field offsets,
- * about twice the file's size — is let go before the check runs: only the columns stay.
+ * The file's columns for the check, and its table when `keepSource` (the
+ * report writers read it). In a function of its own so that without it the
+ * table — the file's bytes and field offsets, about twice the file's size —
+ * is let go when this returns, before the check runs.
  */
-export async function checkFile(file: string, spec: CheckSpec, bins: boolean, keepSource = true): Promise<CheckedFile> {
-  let table: Table | undefined = await readTable(file, spec.sheet);
+async function readColumns(file: string, spec: CheckSpec, keepSource: boolean): Promise<{ input: CheckInput; table?: Table }> {
+  const table = await readTable(file, spec.sheet);
   const input: CheckInput = {
     score: numericColumn(table, spec.scoreName, 'score'),
     treated: numericColumn(table, spec.treatedName, 'treated'),
-    outcomes: spec.outcomeNames.map((o) => numericColumn(table!, o, 'outcome')),
-    covariates: spec.covariateNames.map((c) => numericColumn(table!, c, 'covariate')),
+    outcomes: spec.outcomeNames.map((o) => numericColumn(table, o, 'outcome')),
+    covariates: spec.covariateNames.map((c) => numericColumn(table, c, 'covariate')),
     cluster: spec.clusterName !== undefined ? labelColumn(table, spec.clusterName, 'cluster') : undefined,
     within: spec.withinName !== undefined ? labelColumn(table, spec.withinName, 'within') : undefined,
   };
-  if (!keepSource) table = undefined;
+  return keepSource ? { input, table } : { input };
+}
+
+/** Reads and checks one file; `bins` adds the plot data (reports and --json --bins need them); `keepSource` keeps the file for the reports. */
+export async function checkFile(file: string, spec: CheckSpec, bins: boolean, keepSource = true): Promise<CheckedFile> {
+  const { input, table } = await readColumns(file, spec, keepSource);
   distinctRoles(input);
   if (spec.options.variance === 'cluster' && input.cluster && input.cluster.labels.length < 2) {
     throw new CutlineError(
