@@ -118,22 +118,33 @@ export function cellPrint(cells: unknown[][]): CellPrint | undefined {
   const words = new Int32Array(values.buffer);
   const others: unknown[] = [];
   const objects: unknown[] = [];
-  const line = cells[0];
-  for (let k = 0; k < n; k++) {
-    const v = s.row ? line[k] : cells[k][0];
-    if (typeof v === 'number' && v === v) {
-      values[k] = v;
-      continue;
+  const p: CellPrint = { row: s.row, length: n, values, words, others, objects };
+  if (s.row) {
+    const line = cells[0];
+    for (let k = 0; k < n; k++) {
+      const v = line[k];
+      if (typeof v === 'number' && v === v) values[k] = v;
+      else tag(p, k, v);
     }
-    const kind = kindOf(v);
-    words[2 * k + HI] = TAG + kind;
-    if (kind === KIND_TEXT || kind === KIND_OTHER) {
-      words[2 * k + LO] = others.length;
-      others.push(kind === KIND_TEXT ? v : otherKey(v));
-      objects.push(kind === KIND_TEXT ? undefined : v);
-    }
+    return p;
   }
-  return { row: s.row, length: n, values, words, others, objects };
+  for (let k = 0; k < n; k++) {
+    const v = cells[k][0];
+    if (typeof v === 'number' && v === v) values[k] = v;
+    else tag(p, k, v);
+  }
+  return p;
+}
+
+/** Writes the tag of a cell that is not a (non-NaN) number into slot k. */
+function tag(p: CellPrint, k: number, v: unknown): void {
+  const kind = kindOf(v);
+  p.words[2 * k + HI] = TAG + kind;
+  if (kind === KIND_TEXT || kind === KIND_OTHER) {
+    p.words[2 * k + LO] = p.others.length;
+    p.others.push(kind === KIND_TEXT ? v : otherKey(v));
+    p.objects.push(kind === KIND_TEXT ? undefined : v);
+  }
 }
 
 /**
