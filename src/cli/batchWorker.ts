@@ -16,7 +16,7 @@ export function startBatchWorker(): void {
     let reply: WorkerReply;
     try {
       const c = await checkFile(t.file, t.spec, true);
-      const model = await writeReports(c.source, c.result, t.spec.options, c.names, t.req);
+      const model = await writeReports(c.source!, c.result, t.spec.options, c.names, t.req);
       reply = { ok: true, headline: model.headline };
     } catch (e) {
       const msg = e instanceof CutlineError ? withFlags(errorLine(e)) : `internal error: ${e instanceof Error ? e.message : String(e)}`;

@@ -10,6 +10,7 @@ import { BANDWIDTH_RULES, CheckInput, CheckOptions, CheckResult, CutlineError, K
 import { labelColumn, numericColumn } from '../input/columns';
 import { choiceOption, numberOption, one, ParsedArgs, required } from './args';
 import { readTable } from './readTable';
+import { Table } from '../input/table';
 import type { SourceFile } from './reportFiles';
 
 export interface CheckSpec {
@@ -133,12 +134,18 @@ export function parseCheckSpec(args: ParsedArgs): CheckSpec {
 
 export interface CheckedFile {
   result: CheckResult;
-  source: SourceFile;
+  /** The file's bytes and table, for the report writers (absent when `keepSource` is false). */
+  source?: SourceFile;
   names: { score: string; treated: string };
 }
 
-/** Reads and checks one file; `bins` adds the plot data (reports and --json --bins need them). */
-export async function checkFile(file: string, spec: CheckSpec, bins: boolean): Promise<CheckedFile> {
+/**
+ * The file's columns for the check, and its table when `keepSource` (the
+ * report writers read it). In a function of its own so that without it the
+ * table — the file's bytes and field offsets, about twice the file's size —
+ * is let go when this returns, before the check runs.
+ */
+async function readColumns(file: string, spec: CheckSpec, keepSource: boolean): Promise<{ input: CheckInput; table?: Table }> {
   const table = await readTable(file, spec.sheet);
   const input: CheckInput = {
     score: numericColumn(table, spec.scoreName, 'score'),
@@ -148,6 +155,12 @@ export async function checkFile(file: string, spec: CheckSpec, bins: boolean): P
     cluster: spec.clusterName !== undefined ? labelColumn(table, spec.clusterName, 'cluster') : undefined,
     within: spec.withinName !== undefined ? labelColumn(table, spec.withinName, 'within') : undefined,
   };
+  return keepSource ? { input, table } : { input };
+}
+
+/** Reads and checks one file; `bins` adds the plot data (reports and --json --bins need them); `keepSource` keeps the file for the reports. */
+export async function checkFile(file: string, spec: CheckSpec, bins: boolean, keepSource = true): Promise<CheckedFile> {
+  const { input, table } = await readColumns(file, spec, keepSource);
   distinctRoles(input);
   if (spec.options.variance === 'cluster' && input.cluster && input.cluster.labels.length < 2) {
     throw new CutlineError(
@@ -155,13 +168,11 @@ export async function checkFile(file: string, spec: CheckSpec, bins: boolean): P
     );
   }
   const result = runCheck(input, { ...spec.options, bins });
+  const names = { score: input.score.name, treated: input.treated.name };
+  if (!table) return { result, names };
   // readTable has read the bytes already; the workbook writer needs them again only for XLSX.
   const ext = path.extname(file).toLowerCase();
   const bytes = fs.readFileSync(file);
   const isXlsx = (bytes.length >= 4 && bytes[0] === 0x50 && bytes[1] === 0x4b) || ext === '.xlsx' || ext === '.xlsm';
-  return {
-    result,
-    source: { file, bytes, sheet: spec.sheet, isXlsx, table },
-    names: { score: input.score.name, treated: input.treated.name },
-  };
+  return { result, source: { file, bytes, sheet: spec.sheet, isXlsx, table }, names };
 }

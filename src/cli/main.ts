@@ -87,12 +87,13 @@ async function check(args: ParsedArgs): Promise<number> {
   if (bins && !args.flags.has('json')) throw new CutlineError('--bins adds the binned tables to the JSON document: use it with --json');
   const spec = parseCheckSpec(args);
   const reports = xlsx !== undefined || html !== undefined;
-  const c = await checkFile(file, spec, bins || reports);
+  // Without reports the file's table is let go before the check runs (peak memory).
+  const c = await checkFile(file, spec, bins || reports, reports);
   if (args.flags.has('json')) process.stdout.write(JSON.stringify(toJson(bins ? c.result : withoutPlotData(c.result)), null, 2) + '\n');
   else process.stdout.write(readable(file, c.result));
   if (reports) {
     const { writeReports } = await import('./reportFiles');
-    await writeReports(c.source, c.result, spec.options, c.names, { xlsx, html });
+    await writeReports(c.source!, c.result, spec.options, c.names, { xlsx, html });
     if (!args.flags.has('json')) process.stdout.write(`\nReports written: ${[xlsx, html].filter((p) => p !== undefined).join(', ')}\n`);
   }
   return 0;

@@ -23,9 +23,9 @@
  * @example
  *   complierCdf(score, treated, bill, 60, [400, 500, 600], 1, { bandwidth: 8, kernel: 'triangular' }).cdf
  */
-import { SideFit, Window, applyWeights, boundaryWindow, KernelName, gathered } from '../fit';
+import { SideFit, Window, boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
-import { formatNumber, searchSorted } from '../numeric';
+import { formatNumber, rankLookup, rankOf } from '../numeric';
 
 export interface ComplierOptions {
   bandwidth: number;
@@ -80,7 +80,15 @@ function checkWindow(win: Window, treated: ArrayLike<number>, outcome: ArrayLike
       if (!Number.isFinite(y[t])) throw new CutlineError(`outcome is not a finite number at row ${side.index[t] + 1}`);
     }
   }
-  const pi = applyWeights(plus.coef1[0], plus.index, treated) - applyWeights(minus.coef1[0], minus.index, treated);
+  // Σ ω·D per side from the gathered column (the same sums, read in window order).
+  const takeupSide = (side: SideFit): number => {
+    const w = side.coef1[0];
+    const d = gathered(side, treated);
+    let s = 0;
+    for (let t = 0; t < w.length; t++) s += w[t] * d[t];
+    return s;
+  };
+  const pi = takeupSide(plus) - takeupSide(minus);
   if (!(pi > 0))
     throw new CutlineError(
       `the take-up jump is ${formatNumber(pi)} at bandwidth ${opts.bandwidth}: take-up does not rise at the cutoff, ` +
@@ -134,10 +142,10 @@ export function complierCdf(
   const order = at.map((_, j) => j).sort((a, b) => at[a] - at[b]);
   const sortedAt = order.map((j) => at[j]);
   // Signed weights of the arm's units: F(y) = Σ_{Y_i ≤ y} c_i, c = ±ω/π. Each
-  // unit adds its weight at the first sorted `at` value ≥ Y_i (binary search),
+  // unit adds its weight at the first sorted `at` value ≥ Y_i (a bucket table, numeric/rankLookup.ts),
   // then a running sum gives F at every point: O(N log |at|), no sort of the window.
   const bucket = new Float64Array(sortedAt.length + 1);
-  const grid = Float64Array.from(sortedAt);
+  const grid = rankLookup(Float64Array.from(sortedAt), sortedAt[0], sortedAt[sortedAt.length - 1]);
   for (const [side, s] of [[p.plus, 1], [p.minus, -1]] as const) {
     const w = side.coef1[0];
     const c = (arm === 1 ? s : -s) / p.pi;
@@ -146,7 +154,7 @@ export function complierCdf(
     for (let t = 0; t < w.length; t++) {
       if (d[t] !== arm) continue;
       const v = y[t];
-      bucket[searchSorted(grid, v, false)] += c * w[t];
+      bucket[rankOf(grid, v)] += c * w[t];
     }
   }
   const sortedCdf: number[] = [];

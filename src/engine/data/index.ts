@@ -2,7 +2,7 @@
 // Everything not listed here is private to the folder; import it from here, never from its file.
 export { checkColumns, checkCutoff } from './checkColumns';
 export type { Column, ColumnSpec } from './checkColumns';
-export { IndexedScore, indexScores, lowerBound, orderView, rememberedOn, sortedOrder, valuesAt } from './indexedScore';
+export { gatheredColumns, IndexedScore, keepGathered, indexScores, lowerBound, orderView, rememberedOn, sortedOrder, valuesAt } from './indexedScore';
 export type { OrderView } from './indexedScore';
 export { compact, completeRows } from './listwise';
 export { countDistinctSorted, distinctScoreWarning, windowDistinctScores } from './repeatedScores';

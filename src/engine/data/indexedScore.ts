@@ -13,7 +13,7 @@
  *   const s = indexScores(Float64Array.of(3, 1, 2));
  *   sortedOrder(s); // Int32Array [1, 2, 0], computed once for s
  */
-import { argsortBy, firstAtLeast } from '../numeric';
+import { argsortWithValues, firstAtLeast } from '../numeric';
 
 /** A sorted order with the columns gathered into it (read-only for every caller). */
 interface SortedOrder {
@@ -46,7 +46,11 @@ export function rememberedOn<V>(score: ArrayLike<number>, key: string, make: () 
 function makeOrder(score: ArrayLike<number>): SortedOrder {
   const all = new Int32Array(score.length);
   for (let i = 0; i < all.length; i++) all[i] = i;
-  return { order: argsortBy(score, all), columns: new WeakMap<object, Float64Array>() };
+  // The sort carries the scores along: they are the handle's gathered score column from the start.
+  const { order, sorted } = argsortWithValues(score, all);
+  const columns = new WeakMap<object, Float64Array>();
+  columns.set(score as object, sorted);
+  return { order, columns };
 }
 
 /** Positions of all units sorted by score (ties by position): once per handle, afresh for a plain array. */
@@ -96,4 +100,22 @@ export function valuesAt(index: Int32Array, values: ArrayLike<number>, view?: Or
   const out = new Float64Array(index.length);
   for (let t = 0; t < index.length; t++) out[t] = values[index[t]];
   return out;
+}
+
+/**
+ * The columns in the handle's sorted order (each gathered once and kept, as
+ * valuesAt does), or undefined for a plain array or a handle not yet sorted.
+ * With keepGathered, a column derived elementwise from others (the trend
+ * guard's outcomes) is computed along the sorted order by sequential reads
+ * instead of gathered afterwards by random ones.
+ */
+export function gatheredColumns(score: ArrayLike<number>, columns: ArrayLike<number>[]): Float64Array[] | undefined {
+  if (!(score instanceof IndexedScore) || !score.sorted) return undefined;
+  const view: OrderView = { sorted: score.sorted, start: 0 };
+  return columns.map((c) => valuesAt(score.sorted!.order, c, view));
+}
+
+/** Keeps `sortedCopy` (values[order[t]] at t, computed by the caller) as the handle's gathered copy of `values`. */
+export function keepGathered(score: ArrayLike<number>, values: Float64Array, sortedCopy: Float64Array): void {
+  if (score instanceof IndexedScore && score.sorted && sortedCopy.length === score.sorted.order.length) score.sorted.columns.set(values, sortedCopy);
 }

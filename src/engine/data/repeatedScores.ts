@@ -16,7 +16,7 @@
  * bandwidths span many support points there.
  */
 
-import { sortedOrder } from './indexedScore';
+import { orderView, sortedOrder, valuesAt } from './indexedScore';
 import { firstAtLeast } from '../numeric';
 
 export interface DistinctScores {
@@ -71,12 +71,14 @@ export function windowDistinctScores(
 /** The same counts read off the shared sorted order of the scores (no sort, no copy). */
 function distinctFromOrder(score: ArrayLike<number>, cutoff: number, bandwidth: number): DistinctScores {
   const order = sortedOrder(score);
+  // The scores in sorted order, read sequentially (a handle keeps them gathered: indexedScore.ts).
+  const sorted = valuesAt(order, score, orderView(score, order));
   const out = { below: 0, above: 0, unitsBelow: 0, unitsAbove: 0 };
   let prev = NaN;
   // First unit with x > −bandwidth (the predicate is monotone along the order).
-  const lo = firstAtLeast((t) => score[order[t]] - cutoff > -bandwidth ? 1 : 0, 0, order.length, 1, false);
+  const lo = firstAtLeast((t) => sorted[t] - cutoff > -bandwidth ? 1 : 0, 0, order.length, 1, false);
   for (let t = lo; t < order.length; t++) {
-    const r = score[order[t]];
+    const r = sorted[t];
     const x = r - cutoff;
     if (x >= 0 ? !(x < bandwidth) : !(-x < bandwidth)) {
       if (x >= 0) break;

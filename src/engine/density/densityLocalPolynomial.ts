@@ -38,7 +38,7 @@
  * @example localPolynomialDensityTest(score, 60).pvalue
  */
 import { CutlineError } from '../errors';
-import { sortedOrder, countDistinctSorted, distinctScoreWarning, requireBothSides, scoreSummary, ScoreSummary } from '../data';
+import { orderView, sortedOrder, valuesAt, countDistinctSorted, distinctScoreWarning, requireBothSides, scoreSummary, ScoreSummary } from '../data';
 import { firstAtLeast, invertSmall, normalQuantile, twoSidedPvalue, formatNumber } from '../numeric';
 import { histogramHeights, mccraryDefaultBin } from './densityMcCrary';
 import { fitPolynomial, polyDerivative, polyValue } from '../fit';
@@ -203,15 +203,17 @@ function comboVariance(up: SideFitResult, lo: SideFitResult, a: number, b: numbe
 /** x = R − c of the window's units on each side, ascending, read off the shared sorted order. */
 function windowFromOrder(score: ArrayLike<number>, cutoff: number, h: number): { xa: Float64Array; xb: Float64Array } {
   const order = sortedOrder(score);
+  // The scores in sorted order, read sequentially (a handle keeps them gathered).
+  const sorted = valuesAt(order, score, orderView(score, order));
   // First position where pred holds (pred is monotone along the order).
-  const first = (pred: (x: number) => boolean): number => firstAtLeast((t) => (pred(score[order[t]] - cutoff) ? 1 : 0), 0, order.length, 1, false);
+  const first = (pred: (x: number) => boolean): number => firstAtLeast((t) => (pred(sorted[t] - cutoff) ? 1 : 0), 0, order.length, 1, false);
   const b0 = first((x) => x > -h);
   const c0 = first((x) => x >= 0);
   const a1 = first((x) => x >= 0 && !(x < h));
   const xb = new Float64Array(Math.max(0, c0 - b0));
-  for (let t = b0; t < c0; t++) xb[t - b0] = score[order[t]] - cutoff;
+  for (let t = b0; t < c0; t++) xb[t - b0] = sorted[t] - cutoff;
   const xa = new Float64Array(a1 - c0);
-  for (let t = c0; t < a1; t++) xa[t - c0] = score[order[t]] - cutoff;
+  for (let t = c0; t < a1; t++) xa[t - c0] = sorted[t] - cutoff;
   return { xa, xb };
 }
 

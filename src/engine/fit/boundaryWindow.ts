@@ -18,6 +18,7 @@
 import { IndexedScore, lowerBound, OrderView, orderView, sortedOrder, valuesAt } from '../data';
 import { CutlineError } from '../errors';
 import { KernelName, kernelWeight } from './kernels';
+import type { NeighbourGroups } from './residuals';
 import { invertSmall, argsortBy, formatNumber } from '../numeric';
 
 
@@ -32,8 +33,10 @@ export interface SideFit {
   k: Float64Array;
   /** Linear fit: coef1[0] intercept weights ω, coef1[1] slope weights. */
   coef1: [Float64Array, Float64Array];
-  /** Quadratic fit on the same window (for bias correction), if asked for. */
+  /** Quadratic fit on the same window (for bias correction), if asked for; its first two rows are made when first read. */
   coef2?: [Float64Array, Float64Array, Float64Array];
+  /** The quadratic fit's x² weights (coef2[2]), made with the fit: all that bias correction reads. */
+  x2Weights?: Float64Array;
   /** Number of distinct scores in the side's window. */
   distinct: number;
   /** Results derived from this side and a column (gathered values, residuals), by kind; they live as long as the fit. */
@@ -48,6 +51,8 @@ export interface SideMemo {
   /** Where the side's units sit in the score handle's sorted order (columns are then read as slices). */
   view?: OrderView;
   compliers: WeakMap<object, WeakMap<object, unknown>>;
+  /** The side's groups of equal scores and their neighbour runs (residuals.ts), found once. */
+  neighbours?: NeighbourGroups;
 }
 
 export function sideMemo(view?: OrderView): SideMemo {
@@ -66,17 +71,19 @@ function sideName(above: boolean): string {
   return above ? 'above' : 'below';
 }
 
-/** Coefficient weights of the degree-p fit, W_j(i) in units of x (not x/h). */
-function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, above: boolean, only?: number): Float64Array[] {
+/** The window's kernel moments Σ k uʲ (j ≤ 2p), u = x/s, and the scale s (computed once for the line and the curve). */
+interface WindowMoments {
+  sc: number;
+  mom: number[];
+}
+
+function windowMoments(x: Float64Array, k: Float64Array, h: number, p: number): WindowMoments {
   const n = x.length;
-  const q = p + 1;
-  const m: number[][] = Array.from({ length: q }, () => new Array<number>(q).fill(0));
   // Moments in u = x/s, s the window's largest |x| (not h: a bandwidth far beyond the
   // data would make every u tiny and the normal equations look singular); Σ k u^(a+b).
   let sc = 0;
   for (let i = 0; i < n; i++) sc = Math.max(sc, Math.abs(x[i]));
   if (!(sc > 0)) sc = h;
-  const mom = new Array<number>(2 * p + 1).fill(0);
   if (p <= 2) {
     // Unrolled moments Σ k uʲ, j ≤ 4 (the only degrees the engine fits).
     let m0 = 0;
@@ -94,18 +101,27 @@ function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, abo
       m3 += ku2 * u;
       m4 += ku2 * u * u;
     }
-    const all = [m0, m1, m2, m3, m4];
-    for (let a = 0; a <= 2 * p; a++) mom[a] = all[a];
-  } else {
-    for (let i = 0; i < n; i++) {
-      const u = x[i] / sc;
-      let pw = k[i];
-      for (let a = 0; a <= 2 * p; a++) {
-        mom[a] += pw;
-        pw *= u;
-      }
+    // All five, whatever p: one pass serves the line and the curve alike.
+    return { sc, mom: [m0, m1, m2, m3, m4] };
+  }
+  const mom = new Array<number>(2 * p + 1).fill(0);
+  for (let i = 0; i < n; i++) {
+    const u = x[i] / sc;
+    let pw = k[i];
+    for (let a = 0; a <= 2 * p; a++) {
+      mom[a] += pw;
+      pw *= u;
     }
   }
+  return { sc, mom };
+}
+
+/** Coefficient weights of the degree-p fit, W_j(i) in units of x (not x/h); `wm` from windowMoments of degree ≥ p. */
+function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, above: boolean, only?: number, wm = windowMoments(x, k, h, p)): Float64Array[] {
+  const n = x.length;
+  const q = p + 1;
+  const m: number[][] = Array.from({ length: q }, () => new Array<number>(q).fill(0));
+  const { sc, mom } = wm;
   for (let a = 0; a < q; a++) for (let b = 0; b < q; b++) m[a][b] = mom[a + b];
   const inv = invertSmall(m);
   if (!inv) {
@@ -218,7 +234,8 @@ function fitPositions(
       `all scores in the window ${sideName(above)} the cutoff are equal (bandwidth ${formatNumber(h, 6)}); a line cannot be fitted — widen the bandwidth`,
     );
   }
-  const [w0, w1] = polyWeights(x, k, h, 1, above);
+  const wm = windowMoments(x, k, h, 2);
+  const [w0, w1] = polyWeights(x, k, h, 1, above, undefined, wm);
   const fit: SideFit = { above, index, x, k, coef1: [w0, w1], distinct, memo: sideMemo(orderView(score, index)) };
   if (withQuadratic) {
     if (distinct < 3 || n < 4) {
@@ -227,8 +244,14 @@ function fitPositions(
           `the bias-corrected interval fits a curve and needs at least 3 — widen the bandwidth`,
       );
     }
-    const [q0, q1, q2] = polyWeights(x, k, h, 2, above);
-    fit.coef2 = [q0, q1, q2];
+    const q2 = polyWeights(x, k, h, 2, above, 2, wm)[2];
+    fit.x2Weights = q2;
+    // The intercept and slope rows only serve the residuals of the fit-based variances: made when first read.
+    let coef2: [Float64Array, Float64Array, Float64Array] | undefined;
+    Object.defineProperty(fit, 'coef2', {
+      enumerable: true,
+      get: () => (coef2 ??= [polyWeights(x, k, h, 2, above, 0, wm)[0], polyWeights(x, k, h, 2, above, 1, wm)[1], q2]),
+    });
   }
   return fit;
 }

@@ -65,9 +65,29 @@ export function effectFrom(win: Window, y: SmoothedJump, d: SmoothedJump, opts: 
   const g = opts.variance === 'cluster' ? windowClusters(win, opts.clusters) : null;
   const tau = y.estimate / d.estimate;
   const tauR = y.estimateRobust / d.estimateRobust;
-  const psi = ratioPsi(y.psi, d.psi, y.estimate, d.estimate);
-  const psiR = ratioPsi(y.psiRobust, d.psiRobust, y.estimateRobust, d.estimateRobust);
-  return makeEstimate(tau, Math.sqrt(varianceOf(psi, g)), tauR, Math.sqrt(varianceOf(psiR, g)), opts.level);
+  return makeEstimate(
+    tau,
+    Math.sqrt(ratioVariance(y.psi, d.psi, y.estimate, d.estimate, g)),
+    tauR,
+    Math.sqrt(ratioVariance(y.psiRobust, d.psiRobust, y.estimateRobust, d.estimateRobust, g)),
+    opts.level,
+  );
+}
+
+/**
+ * varianceOf(ratioPsi(psiA, psiB, a, b), clusters), without the array of the
+ * ratio's influence terms when there are no clusters: the same terms, squared
+ * and summed in the same order.
+ */
+function ratioVariance(psiA: Float64Array, psiB: Float64Array, a: number, b: number, clusters: Int32Array | null): number {
+  if (clusters) return varianceOf(ratioPsi(psiA, psiB, a, b), clusters);
+  const r = a / b;
+  let s = 0;
+  for (let i = 0; i < psiA.length; i++) {
+    const v = (psiA[i] - r * psiB[i]) / b;
+    s += v * v;
+  }
+  return s;
 }
 
 /** Fuzzy (complier) effect τ(Y)/τ(D). */

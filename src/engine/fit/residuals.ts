@@ -74,87 +74,112 @@ export function neighbourResiduals(side: SortedSide, values: ArrayLike<number>, 
  * for each group the J-th smallest distance to the other units is found by
  * walking outwards over groups (each holds at least one unit, so at most J
  * groups are visited), every group within that distance (up to 1e-12
- * relative) is found by binary search, and the neighbour mean of each unit is
+ * relative) is found by walking on from there, and the neighbour mean of each unit is
  * (sum of those groups − its own V)/(their count − 1). The cost is O(n) plus
- * O(J + log n) per distinct score, whatever the ties: the earlier unit-by-unit
+ * O(J) per distinct score, whatever the ties: the earlier unit-by-unit
  * walk cost n × (size of the largest tie group). Sums within a group are
  * compensated (Neumaier) so that a large group's sum minus one value keeps
- * the precision of a direct sum.
+ * the precision of a direct sum. The groups and their neighbour runs depend
+ * on the scores alone, so a side finds them once for all its columns.
  */
 function computeNeighbourResiduals(side: SortedSide, values: ArrayLike<number>, J: number): Float64Array {
-  const { x } = side;
-  const n = x.length;
+  const n = side.x.length;
   const v = gathered(side, values);
   const e = new Float64Array(n);
-  const jj = Math.min(J, n - 1);
-  if (jj <= 0) return e;
-  // Groups of equal scores (x is sorted): start, count, compensated sum.
-  const start = new Int32Array(n + 1);
-  const sums = new Float64Array(n);
-  let G = 0;
-  for (let t = 0; t < n; ) {
-    let u = t;
+  if (Math.min(J, n - 1) <= 0) return e;
+  // Which groups are each group's neighbours depends on the scores alone: found once per side (and J).
+  const memo = side.memo;
+  let nb = memo?.neighbours;
+  if (!nb || nb.J !== J) {
+    nb = neighbourGroups(side.x, J);
+    if (memo) memo.neighbours = nb;
+  }
+  const { start, first, last, G } = nb;
+  // Each group's compensated sum of V.
+  const sums = new Float64Array(G);
+  for (let g = 0; g < G; g++) {
     let s = 0;
     let comp = 0;
-    while (u < n && x[u] === x[t]) {
+    for (let u = start[g]; u < start[g + 1]; u++) {
       const a = v[u];
       const y = s + a;
       comp += Math.abs(s) >= Math.abs(a) ? s - y + a : a - y + s;
       s = y;
-      u++;
     }
-    start[G] = t;
-    sums[G] = s + comp;
-    G++;
-    t = u;
+    sums[g] = s + comp;
   }
-  start[G] = n;
-  const value = (g: number): number => x[start[g]];
-  const size = (g: number): number => start[g + 1] - start[g];
   for (let g = 0; g < G; g++) {
-    const xg = value(g);
-    // The jj-th smallest distance from a unit of group g to the others.
-    let need = jj - (size(g) - 1);
-    let last = 0;
-    let l = g - 1;
-    let r = g + 1;
-    while (need > 0) {
-      // The closer of the next group on the left and on the right (left on a tie, as both are taken below).
-      if (r >= G || (l >= 0 && xg - value(l) <= value(r) - xg)) {
-        last = xg - value(l);
-        need -= size(l--);
-      } else {
-        last = value(r) - xg;
-        need -= size(r++);
-      }
-    }
-    // Every group as far as the jj-th neighbour, up to rounding (1e-12 relative:
-    // equal spacings of a grid differ in their last bits, and the choice must
-    // not depend on the score's scale).
-    const reach = last + last * 1e-12;
-    let lo = 0;
-    let hi = g; // first group with xg − value ≤ reach, in [0, g]
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (xg - value(mid) <= reach) hi = mid;
-      else lo = mid + 1;
-    }
-    const first = lo;
-    lo = g;
-    hi = G - 1; // last group with value − xg ≤ reach, in [g, G − 1]
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (value(mid) - xg <= reach) lo = mid;
-      else hi = mid - 1;
-    }
-    const lastGroup = lo;
+    const lo = first[g];
+    const hi = last[g];
     let total = 0;
-    for (let k = first; k <= lastGroup; k++) total += sums[k];
-    const count = start[lastGroup + 1] - start[first] - 1;
+    for (let k = lo; k <= hi; k++) total += sums[k];
+    const count = start[hi + 1] - start[lo] - 1;
     const f = Math.sqrt(count / (count + 1));
     for (let t = start[g]; t < start[g + 1]; t++) e[t] = f * (v[t] - (total - v[t]) / count);
   }
   return e;
+}
+
+/** A side's groups of equal scores and, for each, the run of groups that holds its neighbours. */
+export interface NeighbourGroups {
+  J: number;
+  G: number;
+  /** Group g holds units start[g]..start[g+1]−1 (x is sorted). */
+  start: Int32Array;
+  /** The neighbours of group g's units are in groups first[g]..last[g] (g's other units included). */
+  first: Int32Array;
+  last: Int32Array;
+}
+
+function neighbourGroups(x: Float64Array, J: number): NeighbourGroups {
+  const n = x.length;
+  const jj = Math.min(J, n - 1);
+  const start = new Int32Array(n + 1);
+  let G = 0;
+  for (let t = 0; t < n; ) {
+    let u = t + 1;
+    while (u < n && x[u] === x[t]) u++;
+    start[G++] = t;
+    t = u;
+  }
+  start[G] = n;
+  // Each group's score (x is sorted, so these ascend).
+  const gx = new Float64Array(G);
+  for (let g = 0; g < G; g++) gx[g] = x[start[g]];
+  const first = new Int32Array(G);
+  const last = new Int32Array(G);
+  for (let g = 0; g < G; g++) {
+    const xg = gx[g];
+    // The jj-th smallest distance from a unit of group g to the others.
+    let need = jj - (start[g + 1] - start[g] - 1);
+    let far = 0;
+    let l = g - 1;
+    let r = g + 1;
+    while (need > 0) {
+      // The closer of the next group on the left and on the right (left on a tie, as both are taken below).
+      if (r >= G || (l >= 0 && xg - gx[l] <= gx[r] - xg)) {
+        far = xg - gx[l];
+        need -= start[l + 1] - start[l];
+        l--;
+      } else {
+        far = gx[r] - xg;
+        need -= start[r + 1] - start[r];
+        r++;
+      }
+    }
+    // Every group as far as the jj-th neighbour, up to rounding (1e-12 relative:
+    // equal spacings of a grid differ in their last bits, and the choice must
+    // not depend on the score's scale). The groups walked over are within it;
+    // the search goes on outwards from them (distances grow monotonically).
+    const reach = far + far * 1e-12;
+    let lo = l + 1;
+    while (lo > 0 && xg - gx[lo - 1] <= reach) lo--;
+    let hi = r - 1;
+    while (hi < G - 1 && gx[hi + 1] - xg <= reach) hi++;
+    first[g] = lo;
+    last[g] = hi;
+  }
+  return { J, G, start, first, last };
 }
 
 /** The e_i of the chosen variance for V on one side. */

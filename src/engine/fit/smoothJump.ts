@@ -30,7 +30,7 @@ export interface SmoothedJump {
 /** Bias-corrected intercept weights of one side: ω − (Σ ω x²) q₂. */
 export function biasCorrectedWeights(side: SideFit): Float64Array {
   const [w] = side.coef1;
-  const q2 = side.coef2![2];
+  const q2 = side.x2Weights!;
   let beta = 0;
   for (let t = 0; t < w.length; t++) beta += w[t] * side.x[t] * side.x[t];
   const out = new Float64Array(w.length);
@@ -50,7 +50,7 @@ export function smoothJump(win: Window, values: ArrayLike<number>, variance: Var
   const psiRobust = new Float64Array(na + nb);
   let estimate = 0;
   let estimateRobust = 0;
-  const robust = win.above.coef2 !== undefined && win.below.coef2 !== undefined;
+  const robust = win.above.x2Weights !== undefined && win.below.x2Weights !== undefined;
   for (const side of [win.above, win.below]) {
     const s = (side.above ? 1 : -1) * sign;
     const off = side.above ? 0 : na;

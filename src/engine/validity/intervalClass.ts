@@ -10,14 +10,19 @@
  *   bins left empty by ties are dropped.
  * The intervals are the unions of consecutive bins (validityMoments.ts).
  *
- * Cost: one numeric sort of the window outcomes; a unit's bin is then a
- * binary search among at most G − 1 cut points.
+ * Cost: a few linear passes (distinct values counted up to G + 1, the cut
+ * points by selection, not a sort of the window); a unit's bin is then read
+ * from a table of equal-width buckets over the window's range
+ * (numeric/rankLookup.ts; a binary search only in the few buckets that hold a
+ * cut point).
  *
  * @example
  *   const cls = intervalClass(Float64Array.of(3, 1, 2, 2), 30);
  *   cls.bins; // 3, single values 1, 2, 3
  *   binOf(cls, 2); // 1
  */
+import { orderStatistics, rankLookup, RankLookup, rankOf, searchSorted } from '../numeric';
+
 export interface IntervalClass {
   /** Number of non-empty bins G′. */
   bins: number;
@@ -28,53 +33,75 @@ export interface IntervalClass {
   /** Smallest and largest window outcome in each bin. */
   binMin: Float64Array;
   binMax: Float64Array;
-  /** N and m of the window. */
+  /** N and m of the window (m counted on demand when it exceeds G). */
   count: number;
   distinct: number;
+  /** The bins read from a table over the window's range (numeric/rankLookup.ts). */
+  lookup?: RankLookup;
 }
 
 /** The bins from the window's outcomes (any order) and the grid size G ≥ 2. */
 export function intervalClass(outcomes: ArrayLike<number>, grid: number): IntervalClass {
-  const sorted = Float64Array.from(outcomes).sort();
-  const N = sorted.length;
-  let m = 0;
-  for (let t = 0; t < N; t++) if (t === 0 || sorted[t] !== sorted[t - 1]) m++;
-  const cuts: number[] = [];
-  const singleValues = m <= grid;
+  const N = outcomes.length;
+  // Distinct values counted up to G + 1: a continuous outcome answers after G + 1 units.
+  const seen = new Set<number>();
+  for (let t = 0; t < N && seen.size <= grid; t++) seen.add(outcomes[t]);
+  const singleValues = seen.size <= grid;
+  let cuts: number[];
+  let min = Infinity;
+  let max = -Infinity;
   if (singleValues) {
-    for (let t = 0; t < N; t++) if (t === 0 || sorted[t] !== sorted[t - 1]) cuts.push(sorted[t]);
-  } else {
-    for (let k = 1; k < grid; k++) {
-      // ⌈kN/G⌉ in exact integer arithmetic (k·N + G − 1 < 2⁵³).
-      const r = Math.floor((k * N + grid - 1) / grid);
-      const z = sorted[r - 1];
-      if (cuts.length === 0 || z !== cuts[cuts.length - 1]) cuts.push(z);
+    cuts = [...seen].sort((a, b) => a - b);
+    if (N > 0) {
+      min = cuts[0];
+      max = cuts[cuts.length - 1];
     }
+  } else {
+    // Cut points z_k = Y_(⌈kN/G⌉) by selection (numeric/orderStatistics.ts): the values a sort gives, in a few linear passes.
+    const ranks = [0];
+    // ⌈kN/G⌉ in exact integer arithmetic (k·N + G − 1 < 2⁵³).
+    for (let k = 1; k < grid; k++) ranks.push(Math.floor((k * N + grid - 1) / grid) - 1);
+    ranks.push(N - 1);
+    const z = orderStatistics(outcomes, ranks);
+    min = z[0];
+    max = z[grid];
+    cuts = [];
+    for (let k = 1; k < grid; k++) if (cuts.length === 0 || z[k] !== cuts[cuts.length - 1]) cuts.push(z[k]);
   }
   // Bins (−∞, c₁], (c₁, c₂], …, (c_last, ∞); the last is empty when c_last is the maximum.
-  const bins = N === 0 ? 0 : cuts.length + (sorted[N - 1] > cuts[cuts.length - 1] ? 1 : 0);
+  const bins = N === 0 ? 0 : cuts.length + (max > cuts[cuts.length - 1] ? 1 : 0);
   const upper = Float64Array.from(cuts.slice(0, Math.max(0, bins - 1)));
   const binMin = new Float64Array(bins).fill(Infinity);
   const binMax = new Float64Array(bins).fill(-Infinity);
-  let b = 0;
+  const cls: IntervalClass = { bins, singleValues, upper, binMin, binMax, count: N, distinct: singleValues ? seen.size : 0 };
+  if (N > 0) cls.lookup = rankLookup(upper, min, max);
+  // Each bin's smallest and largest value in one pass; of −0 and 0 the −0 is kept (a sort puts it first).
   for (let t = 0; t < N; t++) {
-    const y = sorted[t];
-    while (b < bins - 1 && y > upper[b]) b++;
-    if (y < binMin[b]) binMin[b] = y;
-    if (y > binMax[b]) binMax[b] = y;
+    const y = outcomes[t];
+    const b = binOf(cls, y);
+    if (y < binMin[b] || (y === binMin[b] && 1 / y < 0)) binMin[b] = y;
+    if (y > binMax[b] || (y === binMax[b] && 1 / y < 0)) binMax[b] = y;
   }
-  return { bins, singleValues, upper, binMin, binMax, count: N, distinct: m };
+  if (!singleValues) {
+    // m itself only matters beyond G to a caller who asks (tests): counted then, by a sort.
+    let m: number | undefined;
+    Object.defineProperty(cls, 'distinct', {
+      enumerable: true,
+      get: (): number => (m ??= countDistinct(outcomes)),
+    });
+  }
+  return cls;
 }
 
-/** The bin of outcome y: the number of upper bounds below y. */
+/** The number of distinct values (sorted copy). */
+function countDistinct(outcomes: ArrayLike<number>): number {
+  const sorted = Float64Array.from(outcomes).sort();
+  let m = 0;
+  for (let t = 0; t < sorted.length; t++) if (t === 0 || sorted[t] !== sorted[t - 1]) m++;
+  return m;
+}
+
+/** The bin of outcome y: the number of upper bounds below y (read from the lookup table when there is one). */
 export function binOf(cls: IntervalClass, y: number): number {
-  const u = cls.upper;
-  let lo = 0;
-  let hi = u.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (u[mid] < y) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
+  return cls.lookup ? rankOf(cls.lookup, y) : searchSorted(cls.upper, y, false);
 }

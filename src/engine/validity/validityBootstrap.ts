@@ -155,11 +155,12 @@ export function multiplierDraw(
 }
 
 function unitSums(s: SideSums, u: ArrayLike<number>, into: Float64Array): number {
+  const { cell, w, wx } = s.units();
   into.fill(0);
   let t = 0;
-  for (let i = 0; i < s.w.length; i++) {
-    into[s.cell[i]] += u[i] * s.w[i];
-    t += u[i] * s.wx[i];
+  for (let i = 0; i < w.length; i++) {
+    into[cell[i]] += u[i] * w[i];
+    t += u[i] * wx[i];
   }
   return t;
 }
@@ -171,7 +172,8 @@ function unitSums(s: SideSums, u: ArrayLike<number>, into: Float64Array): number
  * alike, so the Rademacher p-value no longer depends on the order of the rows.
  * Returns, for rank j, the unit that receives the j-th sign.
  */
-function canonicalRanks(s: SideSums): Int32Array {
+function canonicalRanks(sums: SideSums): Int32Array {
+  const s = sums.units();
   const n = s.w.length;
   const unit = Int32Array.from({ length: n }, (_, i) => i);
   for (let a = 0; a < n; ) {
@@ -209,7 +211,7 @@ export function bootstrapMaxima(
   const plans = sets.map(drawPlan);
   const zLen = Math.max(...plans.map((p) => 2 * (p.cells + 1)));
   const z = new Float64Array(zLen);
-  const uLen = Math.max(...sets.map((m) => Math.max(m.plus.w.length, m.minus.w.length)));
+  const uLen = Math.max(...sets.map((m) => Math.max(m.plus.n, m.minus.n)));
   const uPlus = new Float64Array(multiplier === 'rademacher' ? uLen : 0);
   const uMinus = new Float64Array(multiplier === 'rademacher' ? uLen : 0);
   const ranks = multiplier === 'rademacher' ? plans.map((p) => [canonicalRanks(p.m.plus), canonicalRanks(p.m.minus)]) : [];
@@ -224,8 +226,8 @@ export function bootstrapMaxima(
         for (let j = 0; j < len; j++) z[j] = rng.normal();
         v = gaussianDraw(p, z, phis[g], null);
       } else {
-        const np = p.m.plus.w.length;
-        const nm = p.m.minus.w.length;
+        const np = p.m.plus.n;
+        const nm = p.m.minus.n;
         // The j-th sign drawn goes to the unit of canonical rank j (see canonicalRanks).
         const [rp, rm] = ranks[g];
         for (let j = 0; j < np; j++) uPlus[rp[j]] = rng.sign();

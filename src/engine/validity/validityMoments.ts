@@ -23,6 +23,13 @@
 import { SideFit, Window, gathered } from '../fit';
 import { IntervalClass, binOf } from './intervalClass';
 
+/** Per window unit (side order): its cell, ω and ωx — what unit-level multipliers (Rademacher) need. */
+export interface UnitTerms {
+  cell: Int32Array;
+  w: Float64Array;
+  wx: Float64Array;
+}
+
 /** Per-side cell sums; cell = arm-1 bins 0..G′−1, then arm-0 bins G′..2G′−1. */
 export interface SideSums {
   /** Σω, Σβ, Σω², Σω²x per cell. */
@@ -34,10 +41,10 @@ export interface SideSums {
   s0: number;
   s1: number;
   s2: number;
-  /** Per window unit (side order): its cell, ω and ωx (for unit-level multipliers). */
-  cell: Int32Array;
-  w: Float64Array;
-  wx: Float64Array;
+  /** Units of the side in the window. */
+  n: number;
+  /** The per-unit terms, made on first call (the normal bootstrap never needs them) and then kept. */
+  units(): UnitTerms;
 }
 
 /** All moments of one window (one covariate cell). */
@@ -68,37 +75,41 @@ function sideSums(side: SideFit, cls: IntervalClass, treated: ArrayLike<number>,
   const G = cls.bins;
   const n = side.index.length;
   const [om, be] = side.coef1;
-  const s: SideSums = {
-    sw: new Float64Array(2 * G),
-    sb: new Float64Array(2 * G),
-    q0: new Float64Array(2 * G),
-    q1: new Float64Array(2 * G),
-    s0: 0,
-    s1: 0,
-    s2: 0,
-    cell: new Int32Array(n),
-    w: new Float64Array(n),
-    wx: new Float64Array(n),
-  };
+  const xs = side.x;
+  const sw = new Float64Array(2 * G);
+  const sb = new Float64Array(2 * G);
+  const q0 = new Float64Array(2 * G);
+  const q1 = new Float64Array(2 * G);
+  let s0 = 0;
+  let s1 = 0;
+  let s2 = 0;
   const ys = gathered(side, outcome);
   const ds = gathered(side, treated);
+  const cellOf = (t: number): number => binOf(cls, ys[t]) + (ds[t] === 1 ? 0 : G);
   for (let t = 0; t < n; t++) {
-    const c = binOf(cls, ys[t]) + (ds[t] === 1 ? 0 : G);
+    const c = cellOf(t);
     const w = om[t];
-    const x = side.x[t];
+    const x = xs[t];
     const w2 = w * w;
-    s.cell[t] = c;
-    s.w[t] = w;
-    s.wx[t] = w * x;
-    s.sw[c] += w;
-    s.sb[c] += be[t];
-    s.q0[c] += w2;
-    s.q1[c] += w2 * x;
-    s.s0 += w2;
-    s.s1 += w2 * x;
-    s.s2 += w2 * x * x;
+    sw[c] += w;
+    sb[c] += be[t];
+    q0[c] += w2;
+    q1[c] += w2 * x;
+    s0 += w2;
+    s1 += w2 * x;
+    s2 += w2 * x * x;
   }
-  return s;
+  let units: UnitTerms | undefined;
+  const makeUnits = (): UnitTerms => {
+    const u = { cell: new Int32Array(n), w: new Float64Array(n), wx: new Float64Array(n) };
+    for (let t = 0; t < n; t++) {
+      u.cell[t] = cellOf(t);
+      u.w[t] = om[t];
+      u.wx[t] = om[t] * xs[t];
+    }
+    return u;
+  };
+  return { sw, sb, q0, q1, s0, s1, s2, n, units: () => (units ??= makeUnits()) };
 }
 
 /** hc0 variance on one side of a moment with intercept a, slope b and in-moment sums Q₀, Q₁. */

@@ -197,10 +197,13 @@ function momentsFor(
   const minusSide = r.sign === 1 ? win.below : win.above;
   const where = r.sign === 1 ? 'above' : 'below';
   const other = r.sign === 1 ? 'below' : 'above';
+  // Treated counts from the sides' gathered columns (read in window order, kept by the side for the moments).
   let treatedPlus = 0;
-  for (let t = 0; t < plusSide.index.length; t++) treatedPlus += treated[plusSide.index[t]];
+  const dPlus = gathered(plusSide, treated);
+  for (let t = 0; t < dPlus.length; t++) treatedPlus += dPlus[t];
   let treatedMinus = 0;
-  for (let t = 0; t < minusSide.index.length; t++) treatedMinus += treated[minusSide.index[t]];
+  const dMinus = gathered(minusSide, treated);
+  for (let t = 0; t < dMinus.length; t++) treatedMinus += dMinus[t];
   const pre = label ? `${label}: ` : '';
   if (treatedPlus === 0)
     throw new CutlineError(
@@ -214,7 +217,7 @@ function momentsFor(
     u += side.index.length;
   }
   const cls = intervalClass(ys, r.grid);
-  if (cls.distinct < 2)
+  if (cls.singleValues && cls.distinct < 2)
     throw new CutlineError(
       `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${fmt(o.bandwidth)}); ` +
         `the validity test needs an outcome that varies there — widen the bandwidth`,
