@@ -8,7 +8,8 @@
 import { EstimateOptions, ValidityOptions } from '../engine';
 import { RangeColumn, rangeColumns, RangeInputError } from '../input/range';
 import { readSettings, Settings } from '../input/settings';
-import { BoundedCache, hashCells, hashColumn } from './cache';
+import { cellPrint, CellPrint, samePrint } from '../input/cellPrint';
+import { BoundedCache } from './cache';
 import { excelError, toExcelError } from './excelError';
 
 /** The part of the runtime's invocation object Cutline reads. */
@@ -27,45 +28,84 @@ export interface RangeSpec {
   binary?: boolean;
 }
 
-/** The checked columns of a call, by the hash of its ranges' cells (about 0.9 MB a column at 100,000 rows). */
-const calls = new BoundedCache<string, RangeColumn[]>(16);
-/** One column array per content, by the hash of the checked column. */
+/**
+ * Ranges seen lately, most recent first: each print (its cells, see
+ * src/input/cellPrint.ts) with an id that names exactly those cells. An id is
+ * never given to other cells, so a result or a column remembered under ids
+ * can only be found again by the very same cells (about 0.8 MB a print at
+ * 100,000 rows).
+ */
+const seen: Array<{ id: number; print: CellPrint }> = [];
+const SEEN_KEPT = 24;
+let nextId = 1;
+/** Checked columns, by the id of their cells, the binary flag and the call's common length (about 0.9 MB a column at 100,000 rows). */
 const columns = new BoundedCache<string, RangeColumn>(24);
 /** Results: small objects. */
 const results = new BoundedCache<string, unknown>(512);
 
 /** Forget everything (for tests and benchmarks that measure a cold start). */
 export function forgetAll(): void {
-  calls.clear();
+  seen.length = 0;
   columns.clear();
   results.clear();
 }
 
-export function cacheSizes(): { calls: number; columns: number; results: number } {
-  return { calls: calls.size, columns: columns.size, results: results.size };
+export function cacheSizes(): { ranges: number; columns: number; results: number } {
+  return { ranges: seen.length, columns: columns.size, results: results.size };
 }
 
-/** A key for the cells of a call's ranges: one quick pass over each (no checking), enough to find a remembered result. */
-export function rangesKey(specs: RangeSpec[]): string {
-  return specs
-    .map((s) => {
-      if (!Array.isArray(s.cells)) throw new RangeInputError(`${s.argument} must be a range of cells`, s.argument, 'shape');
-      return `${hashCells(s.cells)}|${s.binary ? 1 : 0}`;
-    })
-    .join('/');
+/** The ranges of one call: a key naming their cells exactly, and their prints (undefined for a shape the adapter refuses). */
+export interface RangesSeen {
+  key: string;
+  ids: string[];
+  prints: Array<CellPrint | undefined>;
 }
 
 /**
- * Checked columns of one call, remembered by the call's cells (`key` from
- * rangesKey); a column read afresh is replaced by the remembered column with
- * the same contents when there is one, so that every call on the same data
- * hands the engine the same arrays.
+ * The id of a range's cells: the id of the remembered print with exactly
+ * these cells (compared cell by cell, stopping at the first difference), else
+ * a new id with a new print (one pass). A shape the adapter refuses gets an
+ * id of its own and no print (it never computes).
  */
-export function readRanges(specs: RangeSpec[], key: string, invocation?: InvocationLike | null): RangeColumn[] {
-  return calls.get(key, () =>
-    rangeColumns(
-      specs.map((s) => ({ argument: s.argument, cells: s.cells, binary: s.binary, address: invocation?.parameterAddresses?.[s.position] })),
-    ).map((c) => columns.get(hashColumn(c.values, c.missing), () => c)),
+function seenRange(cells: unknown[][]): { id: string; print?: CellPrint } {
+  for (let i = 0; i < seen.length; i++) {
+    const s = seen[i];
+    if (samePrint(cells, s.print)) {
+      if (i > 0) seen.unshift(...seen.splice(i, 1));
+      return { id: String(s.id), print: s.print };
+    }
+  }
+  const print = cellPrint(cells);
+  const id = nextId++;
+  if (!print) return { id: `x${id}` };
+  seen.unshift({ id, print });
+  if (seen.length > SEEN_KEPT) seen.length = SEEN_KEPT;
+  return { id: String(id), print };
+}
+
+/** A key for the cells of a call's ranges (one pass over each, no checking), enough to find a remembered result. */
+export function rangesKey(specs: RangeSpec[]): RangesSeen {
+  const ids: string[] = [];
+  const prints: Array<CellPrint | undefined> = [];
+  for (const s of specs) {
+    if (!Array.isArray(s.cells)) throw new RangeInputError(`${s.argument} must be a range of cells`, s.argument, 'shape');
+    const r = seenRange(s.cells);
+    ids.push(`${r.id}${s.binary ? 'b' : ''}`);
+    prints.push(r.print);
+  }
+  return { key: ids.join('/'), ids, prints };
+}
+
+/**
+ * Checked columns of one call (`seenRanges` from rangesKey): a column read
+ * before from the same cells, as binary or not and to the same length, is not
+ * read (nor checked) again, so the formulas of a summary sheet share one
+ * reading of each range whatever the other ranges of their calls.
+ */
+export function readRanges(specs: RangeSpec[], seenRanges: RangesSeen, invocation?: InvocationLike | null): RangeColumn[] {
+  return rangeColumns(
+    specs.map((s, k) => ({ argument: s.argument, cells: s.cells, binary: s.binary, address: invocation?.parameterAddresses?.[s.position], print: seenRanges.prints[k] })),
+    (k, n, read) => columns.get(`${seenRanges.ids[k]}|${n}`, read),
   );
 }
 

@@ -7,9 +7,7 @@
  * @example =CUTLINE.COMPLIERCDF(C2:C6001, D2:D6001, E2:E6001, 60, J2:J26, 1)
  */
 import { complierCdfAt } from '../engine';
-import { guarded, Matrix } from './call';
-import { armArgument, atArgument, curveMatrix } from './complierCurve';
-import { prepareCall, ranges } from './prepare';
+import { complierCurveCall } from './complierCurve';
 
 /**
  * Implied distribution function of compliers' outcomes at the cutoff, at the given outcome values (spills).
@@ -39,23 +37,5 @@ export function compliercdf(
   detail?: boolean,
   invocation?: CustomFunctions.Invocation,
 ): any[][] {
-  return guarded('COMPLIERCDF', (): Matrix => {
-    const a = atArgument(at, invocation);
-    const side = armArgument(arm);
-    const c = prepareCall(
-      'COMPLIERCDF',
-      {
-        ranges: ranges(['score', score], ['treated', treated, true], ['outcome', outcome]),
-        cutoff,
-        bandwidth,
-        settings,
-        settingsPosition: 7,
-        detail,
-        extraKey: `${a.key}|${side}`,
-      },
-      invocation,
-    );
-    const r = c.result(() => complierCdfAt(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, a.values, side, c.opts));
-    return curveMatrix(r, 'cdf', c.detail, a.row);
-  });
+  return complierCurveCall('COMPLIERCDF', complierCdfAt, 'cdf', { score, treated, outcome, cutoff, at, arm, bandwidth, settings, detail }, invocation);
 }

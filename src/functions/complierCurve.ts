@@ -3,10 +3,42 @@
  * and the spilled layout (one value per `at`, in the shape of `at`; with
  * detail, a table of at/value pairs and the summary rows).
  */
-import { ComplierCurveResult } from '../engine';
+import { complierCdfAt, complierDensityAt, ComplierCurveResult } from '../engine';
 import { rangeNumbers, RangeInputError } from '../input/range';
-import { Cell, cellOf, InvocationLike, Matrix } from './call';
+import { Cell, cellOf, guarded, InvocationLike, Matrix } from './call';
 import { commonRows, table } from './detail';
+import { prepareCall, ranges } from './prepare';
+
+type CurveEntry = typeof complierCdfAt | typeof complierDensityAt;
+
+/** The whole call of COMPLIERCDF or COMPLIERDENSITY: the arguments in the functions' order, one engine entry. */
+export function complierCurveCall(
+  name: 'COMPLIERCDF' | 'COMPLIERDENSITY',
+  entry: CurveEntry,
+  what: 'cdf' | 'density',
+  args: { score: any[][]; treated: any[][]; outcome: any[][]; cutoff: number; at: any[][]; arm: any; bandwidth?: number; settings?: any[][]; detail?: boolean },
+  invocation?: InvocationLike,
+): any[][] {
+  return guarded(name, (): Matrix => {
+    const a = atArgument(args.at, invocation);
+    const side = armArgument(args.arm);
+    const c = prepareCall(
+      name,
+      {
+        ranges: ranges(['score', args.score], ['treated', args.treated, true], ['outcome', args.outcome]),
+        cutoff: args.cutoff,
+        bandwidth: args.bandwidth,
+        settings: args.settings,
+        settingsPosition: 7,
+        detail: args.detail,
+        extraKey: `${a.key}|${side}`,
+      },
+      invocation,
+    );
+    const r = c.result(() => entry(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, a.values, side, c.opts));
+    return curveMatrix(r, what, c.detail, a.row);
+  });
+}
 
 /** The arm: 1 (or TRUE, "treated") for treated compliers, 0 (FALSE, "untreated") for untreated ones. */
 export function armArgument(v: unknown): 0 | 1 {

@@ -7,9 +7,7 @@
  * @example =CUTLINE.COMPLIERDENSITY(C2:C6001, D2:D6001, E2:E6001, 60, J2:J26, 0)
  */
 import { complierDensityAt } from '../engine';
-import { guarded, Matrix } from './call';
-import { armArgument, atArgument, curveMatrix } from './complierCurve';
-import { prepareCall, ranges } from './prepare';
+import { complierCurveCall } from './complierCurve';
 
 /**
  * Implied density of compliers' outcomes at the cutoff, at the given outcome values (spills).
@@ -39,23 +37,5 @@ export function complierdensity(
   detail?: boolean,
   invocation?: CustomFunctions.Invocation,
 ): any[][] {
-  return guarded('COMPLIERDENSITY', (): Matrix => {
-    const a = atArgument(at, invocation);
-    const side = armArgument(arm);
-    const c = prepareCall(
-      'COMPLIERDENSITY',
-      {
-        ranges: ranges(['score', score], ['treated', treated, true], ['outcome', outcome]),
-        cutoff,
-        bandwidth,
-        settings,
-        settingsPosition: 7,
-        detail,
-        extraKey: `${a.key}|${side}`,
-      },
-      invocation,
-    );
-    const r = c.result(() => complierDensityAt(c.cols[0].values, c.cols[1].values, c.cols[2].values, c.cutoff, a.values, side, c.opts));
-    return curveMatrix(r, 'density', c.detail, a.row);
-  });
+  return complierCurveCall('COMPLIERDENSITY', complierDensityAt, 'density', { score, treated, outcome, cutoff, at, arm, bandwidth, settings, detail }, invocation);
 }

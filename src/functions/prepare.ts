@@ -49,7 +49,8 @@ export interface CallArguments {
 }
 
 export function prepareCall(fn: string, a: CallArguments, invocation?: InvocationLike | null): PreparedCall {
-  const cellsKey = rangesKey(a.ranges);
+  const seenRanges = rangesKey(a.ranges);
+  const cellsKey = seenRanges.key;
   const cutoff = numberArgument('cutoff', a.cutoff);
   const bandwidth = bandwidthArgument(a.bandwidth);
   const settings = settingsArgument(a.settings, invocation, a.settingsPosition);
@@ -58,7 +59,7 @@ export function prepareCall(fn: string, a: CallArguments, invocation?: Invocatio
   let opts: ValidityOptions | undefined;
   return {
     get cols(): RangeColumn[] {
-      return (cols ??= readRanges(a.ranges, cellsKey, invocation));
+      return (cols ??= readRanges(a.ranges, seenRanges, invocation));
     },
     get opts(): ValidityOptions {
       if (!opts) {

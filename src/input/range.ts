@@ -26,6 +26,7 @@
  *   score.values; // Float64Array [57.5, 60, 0]; score.missing: [0, 0, 1]
  */
 import { CutlineError } from '../engine';
+import { CellPrint, FALSE_HI, HI, slotCell, tagged, TRUE_HI } from './cellPrint';
 import { cellNumber, showCell } from './cells';
 import { Cell } from './table';
 
@@ -38,6 +39,8 @@ export interface RangeArgument {
   address?: string;
   /** 0/1 values only (treated). */
   binary?: boolean;
+  /** The cells' print (cellPrint.ts), when the caller made one: the values are then read from it, not from the rows. */
+  print?: CellPrint;
 }
 
 export interface RangeColumn {
@@ -134,8 +137,14 @@ export function dataCellPlace(a: RangeArgument, index: number): string {
 /**
  * The columns of one call, checked and of one length. Errors name the
  * argument and the first bad cell; a range of the wrong length names both lengths.
+ * `reuse` (optional) is asked for each column with its index, the common
+ * length and the reading: a caller that remembers columns can return one
+ * read before from the same cells instead of reading them again.
  */
-export function rangeColumns(args: RangeArgument[]): RangeColumn[] {
+export function rangeColumns(
+  args: RangeArgument[],
+  reuse: (k: number, n: number, read: () => RangeColumn) => RangeColumn = (_k, _n, read) => read(),
+): RangeColumn[] {
   const flat = args.map((a) => {
     const cells = view(a);
     const header = cells.length > 0 && isHeader(cells.at(0)) ? 1 : 0;
@@ -156,44 +165,87 @@ export function rangeColumns(args: RangeArgument[]): RangeColumn[] {
       );
     }
   }
-  return flat.map(({ a, cells, header }) => readColumn(a, cells, header, n));
+  return flat.map(({ a, cells, header }, k) => reuse(k, n, () => readColumn(a, cells, header, n)));
 }
 
 function readColumn(a: RangeArgument, cells: CellView, header: number, n: number): RangeColumn {
+  const p = a.print;
+  // A print of these very cells: read its slots (one flat array) instead of the rows.
+  if (p !== undefined && p.length === cells.length) return readPrinted(a, p, cells, header, n);
   const values = new Float64Array(n);
   const missing = new Uint8Array(n);
   let missingCount = 0;
   for (let i = 0; i < n; i++) {
-    const cell = cells.at(header + i);
+    const k = header + i;
+    const cell = cells.at(k);
     // Plain numbers are by far the commonest cells: decide them first.
     if (typeof cell === 'number' && cell === cell && cell !== Infinity && cell !== -Infinity) {
-      if (a.binary && cell !== 0 && cell !== 1) throw bad(a, header + i, cell);
+      if (a.binary && cell !== 0 && cell !== 1) throw bad(a, k, cell);
       values[i] = cell;
       continue;
     }
-    if (typeof cell === 'boolean') {
-      values[i] = cell ? 1 : 0;
-      continue;
-    }
-    const code = errorCode(cell);
-    if (code !== undefined) {
-      if (code === '#N/A') {
-        missing[i] = 1;
-        missingCount++;
-        continue;
-      }
-      throw new RangeInputError(`${a.argument}: ${cellPlace(a, header + i)} holds the error ${code}; correct it or leave the cell empty`, a.argument);
-    }
-    const v = cellNumber(cell as Cell);
-    if (v === null) {
-      missing[i] = 1;
-      missingCount++;
-    } else if (v === undefined || (a.binary && v !== 0 && v !== 1)) {
-      throw bad(a, header + i, cell);
-    } else values[i] = v;
+    missingCount += readCell(a, cell, i, k, values, missing);
   }
   const name = header ? String(cells.at(0)).trim() : undefined;
   return { argument: a.argument, name, values, missing, missingCount };
+}
+
+/**
+ * readColumn from a print: its numbers copied at once (one block), then only
+ * the slots that need a decision looked at: tagged cells (TRUE and FALSE
+ * directly), infinities, and for a binary column anything but 0 and 1.
+ */
+function readPrinted(a: RangeArgument, p: CellPrint, cells: CellView, header: number, n: number): RangeColumn {
+  const values = p.values.slice(header, header + n);
+  const missing = new Uint8Array(n);
+  let missingCount = 0;
+  const words = p.words;
+  const binary = a.binary === true;
+  for (let i = 0; i < n; i++) {
+    const k = header + i;
+    const hi = words[2 * k + HI];
+    if (!tagged(hi)) {
+      const x = values[i];
+      if (x !== Infinity && x !== -Infinity && (!binary || x === 0 || x === 1)) continue;
+    } else if (hi === TRUE_HI || hi === FALSE_HI) {
+      values[i] = hi === TRUE_HI ? 1 : 0;
+      continue;
+    }
+    const cell = slotCell(p, k);
+    values[i] = 0;
+    missingCount += readCell(a, cell, i, k, values, missing);
+  }
+  const name = header ? String(cells.at(0)).trim() : undefined;
+  return { argument: a.argument, name, values, missing, missingCount };
+}
+
+/** One cell by the cell rules into values[i] or missing[i] (1 returned when missing); a bad cell throws naming it (k: its place in the range). */
+function readCell(a: RangeArgument, cell: unknown, i: number, k: number, values: Float64Array, missing: Uint8Array): number {
+  if (typeof cell === 'number' && cell === cell && cell !== Infinity && cell !== -Infinity) {
+    if (a.binary && cell !== 0 && cell !== 1) throw bad(a, k, cell);
+    values[i] = cell;
+    return 0;
+  }
+  if (typeof cell === 'boolean') {
+    values[i] = cell ? 1 : 0;
+    return 0;
+  }
+  const code = errorCode(cell);
+  if (code !== undefined) {
+    if (code === '#N/A') {
+      missing[i] = 1;
+      return 1;
+    }
+    throw new RangeInputError(`${a.argument}: ${cellPlace(a, k)} holds the error ${code}; correct it or leave the cell empty`, a.argument);
+  }
+  const v = cellNumber(cell as Cell);
+  if (v === null) {
+    missing[i] = 1;
+    return 1;
+  }
+  if (v === undefined || (a.binary && v !== 0 && v !== 1)) throw bad(a, k, cell);
+  values[i] = v;
+  return 0;
 }
 
 function bad(a: RangeArgument, k: number, cell: unknown): RangeInputError {

@@ -1,12 +1,11 @@
 // src/functions/call.ts: the shared reading of a call. Equal cells in new
-// arrays (as Excel passes them at each recalculation) give the very same
-// column arrays, so the engine's per-array memories hit; results are
-// remembered by key; arguments are checked by name.
-import { hashCells } from '../../src/functions/cache';
+// arrays (as Excel passes them at each recalculation) give the same key and
+// the very same columns; any changed cell gives another key and a fresh
+// reading; results are remembered by key; arguments are checked by name.
 import { bandwidthArgument, cacheSizes, flagArgument, forgetAll, numberArgument, rangesKey, readRanges, remembered } from '../../src/functions/call';
 import { CutlineError } from '../../src/engine';
 import { prepareCall } from '../../src/functions/prepare';
-import { RangeInputError } from '../../src/input/range';
+import { rangeColumns, RangeInputError } from '../../src/input/range';
 
 const col = (...cells: unknown[]): unknown[][] => cells.map((c) => [c]);
 const specs = (score: unknown[][], treated: unknown[][]) => [
@@ -16,37 +15,53 @@ const specs = (score: unknown[][], treated: unknown[][]) => [
 
 beforeEach(() => forgetAll());
 
-test('equal contents share one prepared column; cells that mean the same too', () => {
+test('a range read once is not read again: equal cells in new arrays, and the same range in another call', () => {
   const read = (s: ReturnType<typeof specs>) => readRanges(s, rangesKey(s));
   const a = read(specs(col('score', 1, 2, 3, ''), col(0, 1, 1, null)));
-  const b = read(specs(col(1, 2, 3), col(false, true, 'TRUE', '')));
-  // Different cells, so different call keys; the same contents, so the same arrays.
-  expect(rangesKey(specs(col(1, 2, 3), col(false, true, 'TRUE', '')))).not.toBe(rangesKey(specs(col('score', 1, 2, 3, ''), col(0, 1, 1, null))));
-  expect(b[0].values).toBe(a[0].values);
-  expect(b[1].values).toBe(a[1].values);
-  expect(cacheSizes()).toEqual({ calls: 2, columns: 2, results: 0 });
-  // Equal cells in new arrays: the same call key, nothing read again.
-  expect(read(specs(col(1, 2, 3), col(false, true, 'TRUE', '')))).toBe(b);
-  const c = read(specs(col(1, 2, 4), col(0, 1, 1)));
-  expect(c[0].values).not.toBe(a[0].values);
-  expect(c[1].values).toBe(a[1].values);
+  expect(Array.from(a[0].values)).toEqual([1, 2, 3]);
+  expect(Array.from(a[1].values)).toEqual([0, 1, 1]);
+  // Equal cells in new arrays: the same key, the same columns.
+  const again = specs(col('score', 1, 2, 3, ''), col(0, 1, 1, null));
+  expect(rangesKey(again).key).toBe(rangesKey(specs(col('score', 1, 2, 3, ''), col(0, 1, 1, null))).key);
+  expect(read(again)[0]).toBe(a[0]);
+  expect(read(again)[1]).toBe(a[1]);
+  // Cells that mean the same but differ (TRUE for 1, no title) are other cells: another key.
+  expect(rangesKey(specs(col(1, 2, 3), col(false, true, 'TRUE', ''))).key).not.toBe(rangesKey(again).key);
+  // One range changed: the other's column is reused, the changed one read.
+  const c = read(specs(col('score', 1, 2, 4, ''), col(0, 1, 1, null)));
+  expect(Array.from(c[0].values)).toEqual([1, 2, 4]);
+  expect(c[1]).toBe(a[1]);
+  expect(cacheSizes()).toEqual({ ranges: 5, columns: 3, results: 0 }); // the five ranges keyed above; three columns read
 });
 
-test('the cells key changes with any cell, its kind, or the shape', () => {
-  const base = [[1], [2.5], [''], [null], ['NA'], [true], [{ code: '#N/A' }]];
-  const key = hashCells(base);
-  expect(hashCells(base.map((r) => [...r]))).toBe(key);
+test('one changed cell, anywhere, is another key and is read afresh: 0 and −0, blank and 0, TRUE and 1 told apart', () => {
+  const base = col('score', 0, 2.5, '', true, 0);
+  const key = rangesKey([{ argument: 'score', cells: base, position: 0 }]).key;
   const variants: unknown[][][] = [
-    [[1], [2.5000000000000004], [''], [null], ['NA'], [true], [{ code: '#N/A' }]],
-    [[1], [2.5], [null], [null], ['NA'], [true], [{ code: '#N/A' }]],
-    [[1], [2.5], [''], [null], ['NB'], [true], [{ code: '#N/A' }]],
-    [[1], [2.5], [''], [null], ['NA'], [1], [{ code: '#N/A' }]],
-    [[1], [2.5], [''], [null], ['NA'], [false], [{ code: '#N/A' }]],
-    [[1], [2.5], [''], [null], ['NA'], [true], [{ code: '#DIV/0!' }]],
-    [[1, 2.5, '', null, 'NA', true, { code: '#N/A' }]],
-    [[-0], [2.5], [''], [null], ['NA'], [true], [{ code: '#N/A' }]],
+    col('score', -0, 2.5, '', true, 0),
+    col('score', 0, 2.5, '', true, -0),
+    col('score', 0, 2.5, 0, true, 0),
+    col('score', 0, 2.5, null, true, 0),
+    col('score', 0, 2.5, '', 1, 0),
+    col('score', 0, 2.5000000000000004, '', true, 0),
+    col('score', 0, 2.5, '', true, ''),
+    col('score', 0, 2.5, '', true, 0, ''),
+    col('Score', 0, 2.5, '', true, 0),
+    [['score', 0, 2.5, '', true, 0]],
   ];
-  expect(new Set([key, ...variants.map(hashCells)]).size).toBe(variants.length + 1);
+  for (const v of variants) {
+    const s = [{ argument: 'score', cells: v, position: 0 }];
+    const k = rangesKey(s);
+    expect(k.key).not.toBe(key);
+    const [fresh] = rangeColumns([{ argument: 'score', cells: v }]);
+    const [cached] = readRanges(s, k);
+    expect(Array.from(cached.values).map((x) => Object.is(x, -0))).toEqual(Array.from(fresh.values).map((x) => Object.is(x, -0)));
+    expect(Array.from(cached.values)).toEqual(Array.from(fresh.values));
+    expect(Array.from(cached.missing)).toEqual(Array.from(fresh.missing));
+    expect(cached.name).toBe(fresh.name);
+  }
+  // And back: the base is still its own key.
+  expect(rangesKey([{ argument: 'score', cells: col('score', 0, 2.5, '', true, 0), position: 0 }]).key).toBe(key);
 });
 
 test('a result is computed once per key', () => {
