@@ -8,7 +8,6 @@ import { CutlineError } from '../engine';
 import { WorkerReply, WorkerTask } from './batch';
 import { checkFile } from './checkFile';
 import { errorLine } from './errorLine';
-import { withFlags } from './flagHints';
 import { writeReports } from './reportFiles';
 
 export function startBatchWorker(): void {
@@ -19,7 +18,7 @@ export function startBatchWorker(): void {
       const model = await writeReports(c.source!, c.result, t.spec.options, c.names, t.req);
       reply = { ok: true, headline: model.headline };
     } catch (e) {
-      const msg = e instanceof CutlineError ? withFlags(errorLine(e)) : `internal error: ${e instanceof Error ? e.message : String(e)}`;
+      const msg = e instanceof CutlineError ? errorLine(e) : `internal error: ${e instanceof Error ? e.message : String(e)}`;
       reply = { ok: false, error: msg };
     }
     parentPort!.postMessage(reply);

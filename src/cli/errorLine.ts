@@ -1,5 +1,6 @@
 /** One line on standard error for a CutlineError, in the command line's words. */
 import { CutlineError } from '../engine';
+import { withFlags } from './flagHints';
 
 /** The command-line spelling of each argument the engine may name in an error. */
 const FLAGS: Record<string, string> = {
@@ -26,10 +27,11 @@ const FLAGS: Record<string, string> = {
 
 /**
  * An error in the command line's words: the engine's argument becomes its flag
- * ("--flag: …") and a 0-based index the file's row (the header is row 1).
+ * ("--flag: …"), a 0-based index the file's row (the header is row 1), and
+ * the options the message names in its own words are added (flagHints.ts).
  */
 export function errorLine(e: CutlineError): string {
-  let message = e.message.replace(/\s*\n\s*/g, ' ');
+  let message = withFlags(e.message.replace(/\s*\n\s*/g, ' '));
   if (e.index !== undefined) message = `row ${e.index + 2}: ${message}`;
   const flag = e.argument !== undefined ? FLAGS[e.argument] : undefined;
   return flag === undefined ? message : `${flag}: ${message}`;

@@ -9,7 +9,6 @@ import { CheckResult, CutlineError } from '../engine';
 import { numberOption, one, parseArgs, ParsedArgs } from './args';
 import { checkFile, parseCheckSpec } from './checkFile';
 import { errorLine } from './errorLine';
-import { withFlags } from './flagHints';
 import { toJson } from './json';
 import { checkOutputPath } from './outputPaths';
 import { readable } from './readable';
@@ -115,7 +114,7 @@ async function main(argv: string[]): Promise<number> {
     return await check(args);
   } catch (e) {
     if (e instanceof CutlineError) {
-      process.stderr.write(`cutline: ${withFlags(errorLine(e))}\n`);
+      process.stderr.write(`cutline: ${errorLine(e)}\n`);
       return 2;
     }
     process.stderr.write(`cutline: internal error: ${e instanceof Error ? e.message : String(e)}\n`);
