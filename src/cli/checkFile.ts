@@ -4,7 +4,6 @@
  * runCheck. The single-file command and every batch worker share this, so a
  * file gives the same numbers alone or in a folder.
  */
-import * as path from 'path';
 import { BANDWIDTH_RULES, CheckInput, CheckOptions, CheckResult, CutlineError, KERNEL_NAMES, MAX_DRAWS, MAX_GRID, runCheck, VARIANCE_NAMES } from '../engine';
 import { labelColumn, numericColumn } from '../input/columns';
 import { choiceOption, numberOption, one, ParsedArgs, required } from './args';
@@ -144,8 +143,8 @@ export interface CheckedFile {
  * table — the file's bytes and field offsets, about twice the file's size —
  * is let go when this returns, before the check runs.
  */
-async function readColumns(file: string, spec: CheckSpec, keepSource: boolean): Promise<{ input: CheckInput; table?: Table; bytes?: Buffer }> {
-  const { table, bytes } = await readTable(file, spec.sheet);
+async function readColumns(file: string, spec: CheckSpec, keepSource: boolean): Promise<{ input: CheckInput; table?: Table; bytes?: Buffer; isXlsx?: boolean }> {
+  const { table, bytes, isXlsx } = await readTable(file, spec.sheet);
   const input: CheckInput = {
     score: numericColumn(table, spec.scoreName, 'score'),
     treated: numericColumn(table, spec.treatedName, 'treated'),
@@ -154,12 +153,12 @@ async function readColumns(file: string, spec: CheckSpec, keepSource: boolean): 
     cluster: spec.clusterName !== undefined ? labelColumn(table, spec.clusterName, 'cluster') : undefined,
     within: spec.withinName !== undefined ? labelColumn(table, spec.withinName, 'within') : undefined,
   };
-  return keepSource ? { input, table, bytes } : { input };
+  return keepSource ? { input, table, bytes, isXlsx } : { input };
 }
 
 /** Reads and checks one file; `bins` adds the plot data (reports and --json --bins need them); `keepSource` keeps the file for the reports. */
 export async function checkFile(file: string, spec: CheckSpec, bins: boolean, keepSource = true): Promise<CheckedFile> {
-  const { input, table, bytes } = await readColumns(file, spec, keepSource);
+  const { input, table, bytes, isXlsx } = await readColumns(file, spec, keepSource);
   distinctRoles(input);
   if (spec.options.variance === 'cluster' && input.cluster && input.cluster.labels.length < 2) {
     throw new CutlineError(
@@ -169,7 +168,5 @@ export async function checkFile(file: string, spec: CheckSpec, bins: boolean, ke
   const result = runCheck(input, { ...spec.options, bins });
   const names = { score: input.score.name, treated: input.treated.name };
   if (!table || !bytes) return { result, names };
-  const ext = path.extname(file).toLowerCase();
-  const isXlsx = (bytes.length >= 4 && bytes[0] === 0x50 && bytes[1] === 0x4b) || ext === '.xlsx' || ext === '.xlsm';
-  return { result, source: { file, bytes, sheet: spec.sheet, isXlsx, table }, names };
+  return { result, source: { file, bytes, sheet: spec.sheet, isXlsx: isXlsx === true, table }, names };
 }

@@ -1,8 +1,8 @@
 /**
  * Reads the input FILE (CSV or XLSX) into a Table. The file is only read,
  * never written. XLSX is recognised by its zip signature or its extension.
- * The bytes come back with the table: the report writers need them too, and
- * the file is read once.
+ * The bytes and the kind come back with the table: the report writers need
+ * them too, and the file is read, and its kind decided, once.
  */
 import * as fs from 'fs';
 import * as path from 'path';
@@ -11,7 +11,7 @@ import { looksLikeUtf16, parseCsv } from '../input/csv';
 import { Table } from '../input/table';
 import { parseXlsx } from '../input/xlsx';
 
-export async function readTable(file: string, sheet?: string): Promise<{ table: Table; bytes: Buffer }> {
+export async function readTable(file: string, sheet?: string): Promise<{ table: Table; bytes: Buffer; isXlsx: boolean }> {
   let bytes: Buffer;
   try {
     const st = fs.statSync(file);
@@ -29,9 +29,9 @@ export async function readTable(file: string, sheet?: string): Promise<{ table: 
   if (!zip && (ext === '.xlsx' || ext === '.xlsm') && !bytes.includes(0) && bytes.length > 0) {
     throw new CutlineError(`${file} is named as an .xlsx workbook but holds plain text; if it is a CSV file, give it a .csv name`);
   }
-  if (zip || ext === '.xlsx' || ext === '.xlsm') return { table: await parseXlsx(bytes, sheet, file), bytes };
+  if (zip || ext === '.xlsx' || ext === '.xlsm') return { table: await parseXlsx(bytes, sheet, file), bytes, isXlsx: true };
   if (sheet !== undefined) throw new CutlineError(`--sheet applies to XLSX workbooks; ${file} is read as CSV`);
   // UTF-16 text holds zero bytes too: parseCsv refuses it with a hint to save it as UTF-8.
   if (bytes.includes(0) && !looksLikeUtf16(bytes)) throw new CutlineError(`${file} is neither a CSV text nor an XLSX workbook (it holds binary data): save the data as CSV UTF-8 or .xlsx`);
-  return { table: parseCsv(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length), file), bytes };
+  return { table: parseCsv(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length), file), bytes, isXlsx: false };
 }
