@@ -12,7 +12,7 @@ export interface OptionSpec {
   repeat?: boolean;
 }
 
-export const CHECK_OPTIONS: Record<string, OptionSpec> = {
+const CHECK_OPTIONS: Record<string, OptionSpec> = {
   score: { value: true },
   treated: { value: true },
   outcome: { value: true, repeat: true },

@@ -19,7 +19,7 @@ import type { ReportRequest } from './reportFiles';
 const INPUT = /\.(csv|xlsx|xlsm)$/i;
 
 /** The input files: files as given, a folder's CSV/XLSX files (not recursive, by name). */
-export function batchInputs(args: string[]): string[] {
+function batchInputs(args: string[]): string[] {
   const files: string[] = [];
   for (const a of args) {
     let st: fs.Stats;

@@ -29,7 +29,7 @@ function header(): string {
   ].join('');
 }
 
-export const GENERAL_CAUTIONS = [
+const GENERAL_CAUTIONS = [
   'A test that does not reject is not proof that the design is valid: it only finds no contradiction in these data.',
   'Cutline informs, and does not replace, the judgement of a qualified evaluator.',
 ];
