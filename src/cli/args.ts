@@ -47,9 +47,7 @@ const CHECK_OPTIONS: Record<string, OptionSpec> = {
 
 export interface ParsedArgs {
   command: string;
-  /** The first input (FILE or folder). */
-  file?: string;
-  /** Every input given, in order. */
+  /** Every input given (FILE or folder), in order. */
   files: string[];
   values: Map<string, string[]>;
   flags: Set<string>;
@@ -62,7 +60,6 @@ export function parseArgs(argv: string[], specs: Record<string, OptionSpec> = CH
     const a = rest[i];
     if (!a.startsWith('--')) {
       out.files.push(a);
-      out.file ??= a;
       continue;
     }
     const eq = a.indexOf('=');

@@ -65,7 +65,7 @@ async function batch(args: ParsedArgs): Promise<number> {
 }
 
 async function check(args: ParsedArgs): Promise<number> {
-  const file = args.file;
+  const file = args.files[0];
   if (!file) throw new CutlineError('check needs an input FILE (CSV or XLSX)');
   const isFolder = args.files.length === 1 && fs.existsSync(file) && fs.statSync(file).isDirectory();
   if (isFolder && !args.values.has('out-dir')) {
