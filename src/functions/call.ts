@@ -122,7 +122,7 @@ export function numberArgument(argument: string, v: unknown): number {
 export function bandwidthArgument(v: unknown): number | undefined {
   if (v === null || v === undefined || v === '') return undefined;
   const h = numberArgument('bandwidth', v);
-  if (h !== undefined && !(h > 0)) throw new RangeInputError(`bandwidth must be a positive number; it is ${h} (leave it empty for the data-driven bandwidth)`, 'bandwidth');
+  if (!(h > 0)) throw new RangeInputError(`bandwidth must be a positive number; it is ${h} (leave it empty for the data-driven bandwidth)`, 'bandwidth');
   return h;
 }
 
