@@ -266,7 +266,7 @@ export function rangeNumbers(a: RangeArgument): number[] {
     if (isBlank(cell)) continue;
     const code = errorCode(cell);
     if (code !== undefined) throw new RangeInputError(`${a.argument}: ${cellPlace(a, k)} holds the error ${code}`, a.argument);
-    const v = typeof cell === 'number' ? cell : cellNumber(cell as Cell);
+    const v = cellNumber(cell as Cell);
     if (typeof v !== 'number' || !Number.isFinite(v)) throw bad(a, k, cell);
     out.push(v);
   }
