@@ -1,7 +1,7 @@
 /**
  * What every worksheet function does around its one engine call: read the
- * ranges through the input adapter (remembering each prepared column by a
- * hash of its cells), read the bandwidth and the settings block, remember the
+ * ranges through the input adapter (remembering each prepared column by the
+ * id of its exact cells, see seenRange), read the bandwidth and the settings block, remember the
  * result by columns, cutoff and settings, and turn any error into an Excel
  * error value that names the argument and the first bad cell.
  */
