@@ -21,9 +21,9 @@
  *   const plan = planSheet(model, { source: 'Data!A1:H6001' });
  *   plan.cells.find((c) => c.address === 'B6'); // { value: 60, style: 'setting', … }
  */
-import { cellAddress, columnLetters, detailField } from './formulas';
+import { columnLetters, detailField } from './formulas';
 import { PlanCell, PlanChart, SheetPlan } from './workbookPort';
-import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
+import { SummaryModel, SummaryTable } from './summaryTypes';
 
 /** What a plan cell is for, beyond its look (the unit tests read this). */
 export type CellRole = 'setting' | 'result' | 'input' | 'text' | 'static';
@@ -407,5 +407,3 @@ function chartOf(m: SummaryModel, id: string, tableId: string | undefined, plots
   return undefined;
 }
 
-export type { SummaryCell };
-export { cellAddress };
