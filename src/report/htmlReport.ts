@@ -8,10 +8,9 @@
  * @example fs.writeFileSync('report.html', htmlReport(buildSummary(result, ctx)))
  */
 import { chartSvg } from './chartSvg';
+import { escapeMarkup as esc } from './escapeMarkup';
 import { num, pval } from './numberText';
 import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
-
-const esc = (s: string): string => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 export function cellText(c: SummaryCell): string {
   if (c.value === null) return '';
