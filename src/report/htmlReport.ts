@@ -84,9 +84,7 @@ export function htmlReport(m: SummaryModel): string {
   const settingsRows = m.settings
     .map(
       (s) =>
-        `<tr><td>${esc(s.key)}</td><td class="${typeof s.value === 'number' ? 'num' : ''}"${s.formula ? ` title="${esc('=' + s.formula)}"` : ''}>${esc(
-          typeof s.value === 'number' ? (s.format === 'integer' || s.format === 'plain' ? String(s.value) : num(s.value)) : s.value,
-        )}</td><td>${esc(s.label)}</td></tr>`,
+        `<tr><td>${esc(s.key)}</td><td class="${typeof s.value === 'number' ? 'num' : ''}"${s.formula ? ` title="${esc('=' + s.formula)}"` : ''}>${esc(cellText({ value: s.value, format: s.format ?? 'number' }))}</td><td>${esc(s.label)}</td></tr>`,
     )
     .join('\n');
   const plotTable = new Map(m.plotTables.map((t) => [t.id, t]));
