@@ -16,6 +16,7 @@ import type ExcelJS from 'exceljs';
 import { cellValueOf } from '../input/cellValue';
 import { Table } from '../input/table';
 import { CHART_HEIGHT, CHART_WIDTH, chartSvg } from './chartSvg';
+import { columnLetters } from './formulas';
 import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
 
 type Workbook = ExcelJS.Workbook;
@@ -164,7 +165,7 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
   // Printed: the values and the pictures (columns A to M), landscape, one page wide; the formula text
   // further right is for copying, not for reading on paper. exceljs writes '$' before the column
   // itself, so the rows carry theirs here: the name becomes $A$1:$M$n, which LibreOffice also reads.
-  const last = String.fromCharCode(64 + PRINTED_COLUMNS);
+  const last = columnLetters(PRINTED_COLUMNS - 1);
   ws.pageSetup = { ...ws.pageSetup, orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printArea: `A$1:${last}$${ws.rowCount}` };
   return ws;
 }
