@@ -21,7 +21,7 @@
  *   const plan = planSheet(model, { source: 'Data!A1:H6001' });
  *   plan.cells.find((c) => c.address === 'B6'); // { value: 60, style: 'setting', … }
  */
-import { columnLetters, detailField } from './formulas';
+import { columnLetters, detailField, rowOf } from './formulas';
 import { PlanCell, PlanChart, SheetPlan } from './workbookPort';
 import { SummaryModel, SummaryTable } from './summaryTypes';
 
@@ -70,8 +70,6 @@ export interface PlotPlace {
 export const a1 = (row: number, col: number): string => `${columnLetters(col)}${row}`;
 
 const strip = (address: string): string => address.replace(/\$/g, '');
-
-const rowOf = (address: string): number => Number(/\d+$/.exec(strip(address))![0]);
 
 /** The note under the title of a live sheet. */
 export const LIVE_NOTE =

@@ -16,7 +16,7 @@ import type ExcelJS from 'exceljs';
 import { cellValueOf } from '../input/cellValue';
 import { Table } from '../input/table';
 import { CHART_HEIGHT, CHART_WIDTH, chartSvg } from './chartSvg';
-import { columnLetters } from './formulas';
+import { columnLetters, rowOf } from './formulas';
 import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
 
 type Workbook = ExcelJS.Workbook;
@@ -127,7 +127,7 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
   wrapped(ws, 2, m.note, { italic: true, color: { argb: 'FF9C1F1F' } });
   wrapped(ws, 3, `Data: ${m.source} — ${m.dataLine}`);
   const first = m.settings[0];
-  const settingsRow = Number(/\d+$/.exec(first.address)![0]) - 1;
+  const settingsRow = rowOf(first.address) - 1;
   ['name', 'value', 'meaning'].forEach((h, i) => {
     const x = ws.getCell(settingsRow, i + 1);
     x.value = h;
@@ -136,7 +136,7 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
   });
   heading(ws, settingsRow - 1, 0, `Settings (the options passed to every formula are ${m.settingsRange})`);
   for (const s of m.settings) {
-    const row = Number(/\d+$/.exec(s.address)![0]);
+    const row = rowOf(s.address);
     ws.getCell(row, 1).value = s.key;
     put(ws, row, 1, { value: s.value, format: s.format });
     ws.getCell(row, 3).value = s.label;
