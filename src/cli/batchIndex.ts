@@ -6,6 +6,7 @@
  */
 import { Headline } from '../report/summaryTypes';
 import { num, pval } from '../report/numberText';
+import { escapeMarkup as esc } from '../report/escapeMarkup';
 
 export interface IndexRow {
   file: string;
@@ -40,8 +41,6 @@ export function indexCsv(rows: IndexRow[], outcomeNames: string[]): string {
   }
   return lines.join('\n') + '\n';
 }
-
-const esc = (s: string): string => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 export function indexHtml(rows: IndexRow[], outcomeNames: string[]): string {
   const failed = rows.filter((r) => r.error).length;

@@ -53,12 +53,13 @@ export function bandwidth(
       { argument: 'values', cells: values, position: 1 },
       ...(given ? [{ argument: 'treated', cells: treated!, position: 3, binary: true }] : []),
     ];
-    const c = prepareCall('BANDWIDTH', { ranges: rangeList, cutoff, settings, settingsPosition: 5, detail, extraKey: purposeOf(purpose) }, invocation);
+    const use = purposeOf(purpose);
+    const c = prepareCall('BANDWIDTH', { ranges: rangeList, cutoff, settings, settingsPosition: 5, detail, extraKey: use }, invocation);
     const r = c.result(() =>
       selectBandwidth(c.cols[0].values, c.cols[1].values, c.cutoff, {
         ...c.opts,
         treated: given ? c.cols[2].values : undefined,
-        purpose: purposeOf(purpose),
+        purpose: use,
       }),
     );
     if (!c.detail) return single('BANDWIDTH', r.bandwidth);

@@ -1,7 +1,7 @@
 /**
  * What every worksheet function does around its one engine call: read the
- * ranges through the input adapter (remembering each prepared column by a
- * hash of its cells), read the bandwidth and the settings block, remember the
+ * ranges through the input adapter (remembering each prepared column by the
+ * id of its exact cells, see seenRange), read the bandwidth and the settings block, remember the
  * result by columns, cutoff and settings, and turn any error into an Excel
  * error value that names the argument and the first bad cell.
  */
@@ -122,7 +122,7 @@ export function numberArgument(argument: string, v: unknown): number {
 export function bandwidthArgument(v: unknown): number | undefined {
   if (v === null || v === undefined || v === '') return undefined;
   const h = numberArgument('bandwidth', v);
-  if (h !== undefined && !(h > 0)) throw new RangeInputError(`bandwidth must be a positive number; it is ${h} (leave it empty for the data-driven bandwidth)`, 'bandwidth');
+  if (!(h > 0)) throw new RangeInputError(`bandwidth must be a positive number; it is ${h} (leave it empty for the data-driven bandwidth)`, 'bandwidth');
   return h;
 }
 

@@ -3,8 +3,7 @@
  * checked columns), the cutoff, the optional bandwidth, the settings block
  * and the detail flag; and the key its result is remembered under.
  */
-import { ValidityOptions } from '../engine';
-import { CutlineError } from '../engine';
+import { CutlineError, ValidityOptions } from '../engine';
 import { dataCellPlace, RangeColumn, RangeInputError } from '../input/range';
 import { Settings } from '../input/settings';
 import {

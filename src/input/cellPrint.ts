@@ -37,13 +37,13 @@ export interface CellPrint {
 
 /** The high word of a tagged slot is TAG + kind; a stored number's high word is never in this range (those are NaNs). */
 const TAG = 0x7ff40000;
-export const KIND_NULL = 1;
-export const KIND_UNDEFINED = 2;
-export const KIND_TRUE = 3;
-export const KIND_FALSE = 4;
-export const KIND_TEXT = 5;
-export const KIND_OTHER = 6;
-export const KIND_NAN = 7;
+const KIND_NULL = 1;
+const KIND_UNDEFINED = 2;
+const KIND_TRUE = 3;
+const KIND_FALSE = 4;
+const KIND_TEXT = 5;
+const KIND_OTHER = 6;
+const KIND_NAN = 7;
 
 /** The high words of TRUE and FALSE. */
 export const TRUE_HI = TAG + KIND_TRUE;
@@ -59,7 +59,7 @@ export function tagged(hi: number): boolean {
 }
 
 /** The kind of a slot (0 for a number). */
-export function slotKind(words: Int32Array, k: number): number {
+function slotKind(words: Int32Array, k: number): number {
   const hi = words[2 * k + HI];
   return tagged(hi) ? hi - TAG : 0;
 }

@@ -24,11 +24,6 @@ export interface LabelColumn {
 
 export type ColumnRole = 'score' | 'treated' | 'outcome' | 'covariate' | 'cluster' | 'within';
 
-/** A column name (or a name given) for a message: quoted, and cut after 40 characters as cell values are. */
-function showName(name: string): string {
-  return showCell(name);
-}
-
 /** Roles without which no estimate exists: a column of them that is entirely missing is an error here. */
 const REQUIRED: ReadonlySet<ColumnRole> = new Set(['score', 'treated', 'outcome']);
 
@@ -36,7 +31,7 @@ function requireSomeValue(table: Table, c: number, role: ColumnRole, missing: Ui
   if (!REQUIRED.has(role) || missing.length === 0) return;
   for (let r = 0; r < missing.length; r++) if (!missing[r]) return;
   throw new CutlineError(
-    `column ${showName(table.header[c])} (${role}) is missing on every one of its ${missing.length} rows (blank, or NA, N/A, #N/A, .); ` +
+    `column ${showCell(table.header[c])} (${role}) is missing on every one of its ${missing.length} rows (blank, or NA, N/A, #N/A, .); ` +
       'check that this is the intended column, or fill in its values',
   );
 }
@@ -48,14 +43,14 @@ export function findColumn(table: Table, name: string, role: string): number {
   for (const same of [(h: string) => h === name, (h: string) => h.toLowerCase() === name.toLowerCase()]) {
     const hits = table.header.flatMap((h, k) => (same(h) ? [k] : []));
     if (hits.length > 1) {
-      throw new CutlineError(`${role}: the header has ${hits.length} columns named ${showName(name)} (columns ${hits.map((k) => k + 1).join(', ')}); rename them`);
+      throw new CutlineError(`${role}: the header has ${hits.length} columns named ${showCell(name)} (columns ${hits.map((k) => k + 1).join(', ')}); rename them`);
     }
     if (hits.length === 1) return hits[0];
   }
   // Twelve names at most, each cut as a cell value is: a header can be megabytes long.
-  const shown = table.header.slice(0, 12).map(showName).join(', ');
+  const shown = table.header.slice(0, 12).map((h) => showCell(h)).join(', ');
   const more = table.header.length > 12 ? `, … (${table.header.length} columns in all)` : '';
-  throw new CutlineError(`${role}: no column named ${showName(name)}; the columns are ${shown}${more}`);
+  throw new CutlineError(`${role}: no column named ${showCell(name)}; the columns are ${shown}${more}`);
 }
 
 export function numericColumn(table: Table, name: string, role: ColumnRole): NumericColumn {
@@ -69,10 +64,10 @@ export function numericColumn(table: Table, name: string, role: ColumnRole): Num
       missing[r] = 1;
     } else if (v === undefined) {
       const what = binary ? 'treated must be 0, 1, TRUE or FALSE' : 'not a number';
-      throw new CutlineError(`column ${showName(table.header[c])} (${role}), row ${r + table.firstRow}: ${what}, found ${showCell(cell)}${decimalCommaHint(cell)}`);
+      throw new CutlineError(`column ${showCell(table.header[c])} (${role}), row ${r + table.firstRow}: ${what}, found ${showCell(cell)}${decimalCommaHint(cell)}`);
     } else if (binary && v !== 0 && v !== 1) {
       throw new CutlineError(
-        `column ${showName(table.header[c])} (treated), row ${r + table.firstRow}: treated must be 0, 1, TRUE or FALSE, found ${showCell(cell)}`,
+        `column ${showCell(table.header[c])} (treated), row ${r + table.firstRow}: treated must be 0, 1, TRUE or FALSE, found ${showCell(cell)}`,
       );
     } else {
       values[r] = v;

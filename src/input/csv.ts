@@ -162,9 +162,9 @@ function scanPlain(text: Uint8Array, delim: string, source: string): Table {
   // The first row of the wrong width that holds only delimiters and blanks (an error unless only blank rows follow).
   let pending = -1;
   let pendingWidth = 0;
-  const rowBlank = (r: number, base: number): boolean => {
+  const rowBlank = (base: number): boolean => {
     for (let f = 0; f < w; f++) if (!blankBytes(text, offsets[base + f], offsets[base + f + 1] - 1)) return false;
-    return r >= 0;
+    return true;
   };
   // One pass over the bytes: a line ends at LF, CR LF or a lone CR; fields at the delimiter.
   while (i <= end && pos < end) {
@@ -200,13 +200,13 @@ function scanPlain(text: Uint8Array, delim: string, source: string): Table {
       blankRow(offsets, base, w, i);
     } else {
       offsets[base + w] = j + 1;
-      if (pending >= 0 && !rowBlank(rows, base)) checkWidth(pendingWidth, w, pending + 2, source, false, delim);
+      if (pending >= 0 && !rowBlank(base)) checkWidth(pendingWidth, w, pending + 2, source, false, delim);
     }
     rows++;
     i = j + (text[j] === 13 && text[j + 1] === 10 ? 2 : 1);
   }
   // Blank rows at the end are ignored, as Papa Parse's rows are (parseWithPapa).
-  while (rows > 0 && rowBlank(rows - 1, (rows - 1) * (w + 1))) rows--;
+  while (rows > 0 && rowBlank((rows - 1) * (w + 1))) rows--;
   if (pending >= 0 && pending < rows) checkWidth(pendingWidth, w, pending + 2, source, false, delim);
   return {
     header,

@@ -98,6 +98,11 @@ function isHeader(cell: unknown): boolean {
   return typeof cell === 'string' && !isBlank(cell) && cellNumber(cell as Cell) === undefined;
 }
 
+/** 1 when the range starts with a header (its title), else 0: the cells before the data. */
+function titleRows(cells: CellView): number {
+  return cells.length > 0 && isHeader(cells.at(0)) ? 1 : 0;
+}
+
 /** Column letters of a 1-based column number. */
 function letters(col: number): string {
   let s = '';
@@ -129,9 +134,7 @@ export function cellPlace(a: RangeArgument, k: number): string {
  * a message: how the engine's 0-based position in a column becomes a cell.
  */
 export function dataCellPlace(a: RangeArgument, index: number): string {
-  const cells = view(a);
-  const title = cells.length > 0 && isHeader(cells.at(0)) ? 1 : 0;
-  return cellPlace(a, title + index);
+  return cellPlace(a, titleRows(view(a)) + index);
 }
 
 /**
@@ -147,7 +150,7 @@ export function rangeColumns(
 ): RangeColumn[] {
   const flat = args.map((a) => {
     const cells = view(a);
-    const header = cells.length > 0 && isHeader(cells.at(0)) ? 1 : 0;
+    const header = titleRows(cells);
     let end = cells.length;
     while (end > header && isBlank(cells.at(end - 1))) end--;
     return { a, cells, header, end };
@@ -258,12 +261,12 @@ function bad(a: RangeArgument, k: number, cell: unknown): RangeInputError {
 export function rangeNumbers(a: RangeArgument): number[] {
   const cells = view(a);
   const out: number[] = [];
-  for (let k = 0; k < cells.length; k++) {
+  for (let k = titleRows(cells); k < cells.length; k++) {
     const cell = cells.at(k);
-    if (isBlank(cell) || (k === 0 && isHeader(cell))) continue;
+    if (isBlank(cell)) continue;
     const code = errorCode(cell);
     if (code !== undefined) throw new RangeInputError(`${a.argument}: ${cellPlace(a, k)} holds the error ${code}`, a.argument);
-    const v = typeof cell === 'number' ? cell : cellNumber(cell as Cell);
+    const v = cellNumber(cell as Cell);
     if (typeof v !== 'number' || !Number.isFinite(v)) throw bad(a, k, cell);
     out.push(v);
   }

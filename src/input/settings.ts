@@ -116,7 +116,7 @@ export function readSettings(cells: unknown[][] | null | undefined, argument = '
         out.sensitivity = values;
       }
     } else {
-      const v = typeof cell === 'number' ? cell : cellNumber(cell as Cell);
+      const v = cellNumber(cell as Cell);
       const want = k.number;
       const ok =
         typeof v === 'number' &&

@@ -14,6 +14,7 @@
  */
 import { scaleLinear } from 'd3-scale';
 import { curveLinear, curveStepAfter, line } from 'd3-shape';
+import { escapeMarkup as esc } from './escapeMarkup';
 import { ChartSpec } from './summaryTypes';
 
 export const CHART_WIDTH = 640;
@@ -22,7 +23,6 @@ const M = { top: 62, right: 24, bottom: 56, left: 72 };
 const COLORS = ['#1f4e9c', '#b3401a', '#2f7d32', '#7b3fa0', '#8a6d00'];
 const FONT = "DejaVu Sans, Arial, Helvetica, sans-serif";
 
-const esc = (s: string): string => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 const r2 = (v: number): string => (Math.round(v * 100) / 100).toString();
 
 function extent(values: number[]): [number, number] {

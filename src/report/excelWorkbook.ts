@@ -11,7 +11,7 @@
  *   const port = new ExcelWorkbook();
  *   const data = await port.readData({ kind: 'used' });
  */
-import { a1 } from './sheetPlan';
+import { columnLetters } from './formulas';
 import { CellFormat } from './summaryTypes';
 import { CancelledError, DataBlock, DataSource, PlanCell, PortCell, PortError, Progress, SheetPlan, WorkbookPort } from './workbookPort';
 
@@ -106,7 +106,7 @@ export class ExcelWorkbook implements WorkbookPort {
         throw new CancelledError();
       };
       plan.columnWidths.forEach((w, c) => {
-        ws.getRange(`${a1(1, c).replace(/\d+$/, '')}:${a1(1, c).replace(/\d+$/, '')}`).format.columnWidth = w * 6;
+        ws.getRange(`${columnLetters(c)}:${columnLetters(c)}`).format.columnWidth = w * 6;
       });
       for (let k = 0; k < chunks.length; k++) {
         if (cancelled()) await abandon();

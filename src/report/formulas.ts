@@ -104,6 +104,9 @@ export function columnRange(sheet: string, index: number, first: number, last: n
   return `${sheetPrefix(sheet)}$${c}$${first}:$${c}$${last}`;
 }
 
+/** The 1-based row of an A1 address, with or without `$` (e.g. `$B$6` → 6). */
+export const rowOf = (address: string): number => Number(/\d+$/.exec(address)![0]);
+
 /** Absolute address of one cell on the summary sheet (row 1-based, col 0-based). */
 export function cellAddress(row: number, col: number): string {
   return `$${columnLetters(col)}$${row}`;

@@ -8,10 +8,9 @@
  * @example fs.writeFileSync('report.html', htmlReport(buildSummary(result, ctx)))
  */
 import { chartSvg } from './chartSvg';
+import { escapeMarkup as esc } from './escapeMarkup';
 import { num, pval } from './numberText';
 import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
-
-const esc = (s: string): string => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 export function cellText(c: SummaryCell): string {
   if (c.value === null) return '';
@@ -85,9 +84,7 @@ export function htmlReport(m: SummaryModel): string {
   const settingsRows = m.settings
     .map(
       (s) =>
-        `<tr><td>${esc(s.key)}</td><td class="${typeof s.value === 'number' ? 'num' : ''}"${s.formula ? ` title="${esc('=' + s.formula)}"` : ''}>${esc(
-          typeof s.value === 'number' ? (s.format === 'integer' || s.format === 'plain' ? String(s.value) : num(s.value)) : s.value,
-        )}</td><td>${esc(s.label)}</td></tr>`,
+        `<tr><td>${esc(s.key)}</td><td class="${typeof s.value === 'number' ? 'num' : ''}"${s.formula ? ` title="${esc('=' + s.formula)}"` : ''}>${esc(cellText({ value: s.value, format: s.format ?? 'number' }))}</td><td>${esc(s.label)}</td></tr>`,
     )
     .join('\n');
   const plotTable = new Map(m.plotTables.map((t) => [t.id, t]));

@@ -21,9 +21,9 @@
  *   const plan = planSheet(model, { source: 'Data!A1:H6001' });
  *   plan.cells.find((c) => c.address === 'B6'); // { value: 60, style: 'setting', … }
  */
-import { cellAddress, columnLetters, detailField } from './formulas';
+import { columnLetters, detailField, rowOf } from './formulas';
 import { PlanCell, PlanChart, SheetPlan } from './workbookPort';
-import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
+import { SummaryModel, SummaryTable } from './summaryTypes';
 
 /** What a plan cell is for, beyond its look (the unit tests read this). */
 export type CellRole = 'setting' | 'result' | 'input' | 'text' | 'static';
@@ -70,8 +70,6 @@ export interface PlotPlace {
 export const a1 = (row: number, col: number): string => `${columnLetters(col)}${row}`;
 
 const strip = (address: string): string => address.replace(/\$/g, '');
-
-const rowOf = (address: string): number => Number(/\d+$/.exec(strip(address))![0]);
 
 /** The note under the title of a live sheet. */
 export const LIVE_NOTE =
@@ -407,5 +405,3 @@ function chartOf(m: SummaryModel, id: string, tableId: string | undefined, plots
   return undefined;
 }
 
-export type { SummaryCell };
-export { cellAddress };

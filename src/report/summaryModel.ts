@@ -122,12 +122,15 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
   // Result tables start below the settings and a blank row.
   let next = optionsEnd + 3;
   const tables: SummaryTable[] = [];
-  const place = (t: Omit<SummaryTable, 'row'>): SummaryTable => {
+  const plotTables: SummaryTable[] = [];
+  /** Places a table at the next free row of the sheet and adds it to `list`. */
+  const placeIn = (list: SummaryTable[]) => (t: Omit<SummaryTable, 'row'>): SummaryTable => {
     const placed = { ...t, row: next + 1 };
     next += t.rows.length + (t.note ? 5 : 4);
-    tables.push(placed);
+    list.push(placed);
     return placed;
   };
+  const place = placeIn(tables);
   const estimateRow = (label: string, e: EstimateSummary, formula: string): SummaryCell[] => [
     text(label),
     cell(e.estimate, 'number', formula),
@@ -286,13 +289,7 @@ export function buildSummary(r: CheckResult, ctx: SummaryContext): SummaryModel 
   next += Math.ceil(charts.length / 2) * CHART_ROWS + 1;
 
   // Tables behind the plots.
-  const plotTables: SummaryTable[] = [];
-  const placePlot = (t: Omit<SummaryTable, 'row'>): SummaryTable => {
-    const placed = { ...t, row: next + 1 };
-    next += t.rows.length + (t.note ? 5 : 4);
-    plotTables.push(placed);
-    return placed;
-  };
+  const placePlot = placeIn(plotTables);
   for (const b of r.bins ?? []) {
     const values = b.name === ctx.names.treated ? treated : col(b.name);
     const f = F.bins({ score, values }, refs);

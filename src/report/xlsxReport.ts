@@ -16,6 +16,7 @@ import type ExcelJS from 'exceljs';
 import { cellValueOf } from '../input/cellValue';
 import { Table } from '../input/table';
 import { CHART_HEIGHT, CHART_WIDTH, chartSvg } from './chartSvg';
+import { columnLetters, rowOf } from './formulas';
 import { SummaryCell, SummaryModel, SummaryTable } from './summaryTypes';
 
 type Workbook = ExcelJS.Workbook;
@@ -126,7 +127,7 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
   wrapped(ws, 2, m.note, { italic: true, color: { argb: 'FF9C1F1F' } });
   wrapped(ws, 3, `Data: ${m.source} — ${m.dataLine}`);
   const first = m.settings[0];
-  const settingsRow = Number(/\d+$/.exec(first.address)![0]) - 1;
+  const settingsRow = rowOf(first.address) - 1;
   ['name', 'value', 'meaning'].forEach((h, i) => {
     const x = ws.getCell(settingsRow, i + 1);
     x.value = h;
@@ -135,7 +136,7 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
   });
   heading(ws, settingsRow - 1, 0, `Settings (the options passed to every formula are ${m.settingsRange})`);
   for (const s of m.settings) {
-    const row = Number(/\d+$/.exec(s.address)![0]);
+    const row = rowOf(s.address);
     ws.getCell(row, 1).value = s.key;
     put(ws, row, 1, { value: s.value, format: s.format });
     ws.getCell(row, 3).value = s.label;
@@ -164,7 +165,7 @@ export function addSummarySheet(wb: Workbook, m: SummaryModel, png?: (svg: strin
   // Printed: the values and the pictures (columns A to M), landscape, one page wide; the formula text
   // further right is for copying, not for reading on paper. exceljs writes '$' before the column
   // itself, so the rows carry theirs here: the name becomes $A$1:$M$n, which LibreOffice also reads.
-  const last = String.fromCharCode(64 + PRINTED_COLUMNS);
+  const last = columnLetters(PRINTED_COLUMNS - 1);
   ws.pageSetup = { ...ws.pageSetup, orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printArea: `A$1:${last}$${ws.rowCount}` };
   return ws;
 }

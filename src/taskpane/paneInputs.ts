@@ -10,6 +10,7 @@
  */
 import { DataRanges } from '../report/summaryModel';
 import { DataBlock } from '../report/workbookPort';
+import { columnLetters } from '../report/formulas';
 import { labelColumn, numericColumn } from '../input/columns';
 import { Table, tableFromRows } from '../input/table';
 import type { CheckInput, CheckOptions } from './engine';
@@ -81,12 +82,6 @@ export const nameList = (s: string): string[] =>
 
 /** A message of the input layer without the command line's option in front ("--score: …"). */
 export const plain = (e: unknown): string => (e instanceof Error ? e.message : String(e)).replace(/^--[a-z-]+:\s*/, '');
-
-function columnLetters(index: number): string {
-  let s = '';
-  for (let n = index + 1; n > 0; n = Math.floor((n - 1) / 26)) s = String.fromCharCode(65 + ((n - 1) % 26)) + s;
-  return s;
-}
 
 /** The data's address, as the sheet's source line shows it. */
 export function blockAddress(b: DataBlock): string {

@@ -15,7 +15,7 @@
  *   tied units); Cutline's reading, recalled from memory as the supplement's.
  */
 import { valuesAt } from '../data';
-import { SideFit, SortedSide } from './boundaryWindow';
+import { applyWeights, SideFit, SortedSide } from './boundaryWindow';
 
 export type VarianceName = 'hc0' | 'hc1' | 'neighbours' | 'cluster';
 export const VARIANCE_NAMES: readonly VarianceName[] = ['hc0', 'hc1', 'neighbours', 'cluster'];
@@ -28,11 +28,7 @@ export function fitResiduals(side: SideFit, values: ArrayLike<number>, degree: 1
   if (!coefs) throw new Error('quadratic weights were not computed for this window');
   const { index, x } = side;
   const n = index.length;
-  const b = coefs.map((w) => {
-    let s = 0;
-    for (let t = 0; t < n; t++) s += w[t] * values[index[t]];
-    return s;
-  });
+  const b = coefs.map((w) => applyWeights(w, index, values));
   const e = new Float64Array(n);
   for (let t = 0; t < n; t++) {
     let fitted = 0;

@@ -32,6 +32,7 @@
  *   if (v.applicable) v.pvalue; // max of v.observed.pvalue and v.trend_adjusted?.pvalue
  */
 import { CutlineError } from '../errors';
+import { formatNumber } from '../numeric';
 import { SideTrend, trendRemoved } from './trendRemoved';
 import { resolveValidityOptions, ValidityNotApplicable, ValidityOptions, ValidityOutcome, ValidityResult, validityTest } from './validityTest';
 
@@ -81,8 +82,6 @@ export interface ValidityReport {
 }
 
 export type ValidityReportOutcome = ValidityReport | (ValidityNotApplicable & { by_bandwidth?: undefined });
-
-const fmt = (v: number): string => Number(v.toPrecision(4)).toString();
 
 /**
  * Distinct outcome values among the rows with |R − c| < h (the window of every
@@ -212,16 +211,16 @@ export function validityReport(
 export function verdictWarnings(byBandwidth: ValidityAtBandwidth[]): string[] {
   const ok = byBandwidth.filter((b) => b.error === undefined && b.applicable !== false);
   const out: string[] = [];
-  const rej = ok.filter((b) => b.rejects).map((b) => fmt(b.bandwidth));
-  const acc = ok.filter((b) => !b.rejects).map((b) => fmt(b.bandwidth));
+  const rej = ok.filter((b) => b.rejects).map((b) => formatNumber(b.bandwidth));
+  const acc = ok.filter((b) => !b.rejects).map((b) => formatNumber(b.bandwidth));
   if (rej.length > 0 && acc.length > 0)
     out.push(
       `the validity verdict at 5% changes with the bandwidth: rejected at ${rej.join(', ')}, not rejected at ${acc.join(', ')}; ` +
         `a verdict that turns with the bandwidth is a finding in itself`,
     );
   const sharp = byBandwidth.filter((b) => b.applicable === false);
-  if (sharp.length > 0) out.push(`the validity test is not applicable at bandwidth ${sharp.map((b) => fmt(b.bandwidth)).join(', ')}: ${sharp[0].reason}`);
+  if (sharp.length > 0) out.push(`the validity test is not applicable at bandwidth ${sharp.map((b) => formatNumber(b.bandwidth)).join(', ')}: ${sharp[0].reason}`);
   const bad = byBandwidth.filter((b) => b.error !== undefined);
-  if (bad.length > 0) out.push(`the validity test could not run at bandwidth ${bad.map((b) => fmt(b.bandwidth)).join(', ')}: ${bad[0].error}`);
+  if (bad.length > 0) out.push(`the validity test could not run at bandwidth ${bad.map((b) => formatNumber(b.bandwidth)).join(', ')}: ${bad[0].error}`);
   return out;
 }

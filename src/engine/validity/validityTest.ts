@@ -36,6 +36,7 @@
  */
 import { boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
+import { formatNumber } from '../numeric';
 import { intervalClass } from './intervalClass';
 import { MultiplierName, bootstrapMaxima, selection } from './validityBootstrap';
 import { MomentSet, selectMoments, takeupOf, validityMoments } from './validityMoments';
@@ -163,8 +164,6 @@ export function checkColumns(
   return total;
 }
 
-const fmt = (v: number): string => Number(v.toPrecision(4)).toString();
-
 /** One window's moments, with the arms that test nothing left out. */
 export interface WindowMoments {
   /** The moments kept (null: neither arm tests anything in this window). */
@@ -207,7 +206,7 @@ function momentsFor(
   const pre = label ? `${label}: ` : '';
   if (treatedPlus === 0)
     throw new CutlineError(
-      `${pre}no treated unit ${where} the cutoff inside the window (bandwidth ${fmt(o.bandwidth)}): take-up cannot rise there; ` +
+      `${pre}no treated unit ${where} the cutoff inside the window (bandwidth ${formatNumber(o.bandwidth)}): take-up cannot rise there; ` +
         `check the treated column and the eligibility side`,
     );
   const ys = new Float64Array(win.above.index.length + win.below.index.length);
@@ -219,7 +218,7 @@ function momentsFor(
   const cls = intervalClass(ys, r.grid);
   if (cls.singleValues && cls.distinct < 2)
     throw new CutlineError(
-      `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${fmt(o.bandwidth)}); ` +
+      `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${formatNumber(o.bandwidth)}); ` +
         `the validity test needs an outcome that varies there — widen the bandwidth`,
     );
   const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign);
@@ -375,19 +374,19 @@ export function validityTest(
   // trim 0.1 to 0.12 at trim 10 on a design it rejects with t = 10).
   if (r.trim > 0 && sets.every((m) => m.se.every((se) => se < m.floor))) {
     warnings.push(
-      `the trim ${fmt(r.trim)} is so large that it replaces the standard error of every interval: the test no longer weighs intervals by their precision and loses power (at larger trims it can hardly reject, whatever the data); use a trim near the default 0.1`,
+      `the trim ${formatNumber(r.trim)} is so large that it replaces the standard error of every interval: the test no longer weighs intervals by their precision and loses power (at larger trims it can hardly reject, whatever the data); use a trim near the default 0.1`,
     );
   }
   const tk = cellIds ? momentsFor(score, treated, outcome, cutoff, options, r, options.rows, '').takeup : windows[0].takeup;
   if (tk.estimate > 0.8)
     warnings.push(
-      `the take-up jump in the test's window (bandwidth ${fmt(options.bandwidth)}) is ${fmt(tk.estimate)}, above 0.8: in a nearly ` +
+      `the take-up jump in the test's window (bandwidth ${formatNumber(options.bandwidth)}) is ${formatNumber(tk.estimate)}, above 0.8: in a nearly ` +
         `sharp design the test has little power to detect continuity failures, because the restrictions bind only through the few non-compliers`,
     );
   const z = tk.se > 0 ? tk.estimate / tk.se : tk.estimate > 0 ? Infinity : -Infinity;
   if (!(z >= 1.645))
     warnings.push(
-      `the take-up jump in the test's window (${fmt(tk.estimate)}, z = ${fmt(z)}) is not significantly positive at 5%: ` +
+      `the take-up jump in the test's window (${formatNumber(tk.estimate)}, z = ${formatNumber(z)}) is not significantly positive at 5%: ` +
         `the restrictions then say little, and a non-rejection is weak evidence`,
     );
 
