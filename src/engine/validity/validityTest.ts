@@ -303,7 +303,23 @@ export function validityTest(
 ): ValidityOutcome {
   const r = resolveValidityOptions(options);
   if (!Number.isFinite(cutoff)) throw new CutlineError(`cutoff must be a finite number, got ${cutoff}`);
-  const n = checkColumns(score, treated, outcome, options.rows);
+  return validityTestChecked(score, treated, outcome, cutoff, options, r, checkColumns(score, treated, outcome, options.rows));
+}
+
+/**
+ * validityTest on columns already checked (checkColumns: `n` rows used) with
+ * options already resolved: the validity report checks once for all its runs
+ * (both versions, every bandwidth), a pass over every row each time otherwise.
+ */
+export function validityTestChecked(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  outcome: ArrayLike<number>,
+  cutoff: number,
+  options: ValidityOptions,
+  r: ResolvedOptions,
+  n: number,
+): ValidityOutcome {
   const { windows, cellIds } = validityMomentSets(score, treated, outcome, cutoff, options, r);
   const plusName = r.sign === 1 ? 'above' : 'below';
   const minusName = r.sign === 1 ? 'below' : 'above';
