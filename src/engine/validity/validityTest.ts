@@ -215,13 +215,15 @@ function momentsFor(
     ys.set(gathered(side, outcome), u);
     u += side.index.length;
   }
-  const cls = intervalClass(ys, r.grid);
+  const bins = new Int32Array(ys.length);
+  const cls = intervalClass(ys, r.grid, bins);
   if (cls.singleValues && cls.distinct < 2)
     throw new CutlineError(
       `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${formatNumber(o.bandwidth)}); ` +
         `the validity test needs an outcome that varies there — widen the bandwidth`,
     );
-  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign);
+  const na = win.above.index.length;
+  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign, { above: bins.subarray(0, na), below: bins.subarray(na) });
   const left: WindowMoments['left'] = [];
   if (treatedMinus === 0)
     left.push({
