@@ -4,8 +4,6 @@
  * comes from a CSV text, an exceljs worksheet or a worksheet range, so that
  * validation (columns.ts) and its messages are the same in every face.
  */
-import { MISSING, SLOW } from './fastNumber';
-
 export type Cell = string | number | boolean | null | undefined;
 
 export interface Table {
@@ -15,11 +13,6 @@ export interface Table {
   firstRow: number;
   /** The cell at data row r (0-based) and column c. */
   get(r: number, c: number): Cell;
-  /**
-   * Optional fast read of cell (r, c) as a number: a number, MISSING, or SLOW
-   * when the general rules of cells.ts must decide (plain CSV texts have it).
-   */
-  fastNumber?(r: number, c: number): number | typeof SLOW | typeof MISSING;
   /**
    * Optional fast read of a whole column: values, a missing mask, and the rows
    * (ascending) that the general rules must decide.

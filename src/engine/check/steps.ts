@@ -7,7 +7,7 @@
  */
 import { BandwidthChoice, BandwidthRule, chooseBandwidth, bandwidthMse, widenForTies } from '../bandwidth';
 import { CutlineError } from '../errors';
-import { applyWeights, boundaryWindow, Window, KernelName } from '../fit';
+import { boundaryWindow, gathered, Window, KernelName } from '../fit';
 import { sortedOrder } from '../data';
 import { formatNumber } from '../numeric';
 import { MultiplierName, validityReport, ValidityAtBandwidth } from '../validity';
@@ -42,8 +42,15 @@ export function eligibleSide(
     }
     return { sign: given === 'above' ? 1 : -1, eligible: given, window, warnings: [] };
   }
-  const raw =
-    applyWeights(window.above.coef1[0], window.above.index, treated) - applyWeights(window.below.coef1[0], window.below.index, treated);
+  // Read from the sides' gathered treated column (kept for the estimates, which read it next).
+  const intercept = (side: Window['above']): number => {
+    const w = side.coef1[0];
+    const d = gathered(side, treated);
+    let a = 0;
+    for (let t = 0; t < w.length; t++) a += w[t] * d[t];
+    return a;
+  };
+  const raw = intercept(window.above) - intercept(window.below);
   const sign: 1 | -1 = raw < 0 ? -1 : 1;
   return { sign, eligible: sign > 0 ? 'above' : 'below', window, warnings: sign < 0 ? [FALLING_TAKEUP_WARNING] : [] };
 }

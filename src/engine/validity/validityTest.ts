@@ -215,13 +215,15 @@ function momentsFor(
     ys.set(gathered(side, outcome), u);
     u += side.index.length;
   }
-  const cls = intervalClass(ys, r.grid);
+  const bins = new Int32Array(ys.length);
+  const cls = intervalClass(ys, r.grid, bins);
   if (cls.singleValues && cls.distinct < 2)
     throw new CutlineError(
       `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${formatNumber(o.bandwidth)}); ` +
         `the validity test needs an outcome that varies there — widen the bandwidth`,
     );
-  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign);
+  const na = win.above.index.length;
+  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign, { above: bins.subarray(0, na), below: bins.subarray(na) });
   const left: WindowMoments['left'] = [];
   if (treatedMinus === 0)
     left.push({
@@ -303,7 +305,23 @@ export function validityTest(
 ): ValidityOutcome {
   const r = resolveValidityOptions(options);
   if (!Number.isFinite(cutoff)) throw new CutlineError(`cutoff must be a finite number, got ${cutoff}`);
-  const n = checkColumns(score, treated, outcome, options.rows);
+  return validityTestChecked(score, treated, outcome, cutoff, options, r, checkColumns(score, treated, outcome, options.rows));
+}
+
+/**
+ * validityTest on columns already checked (checkColumns: `n` rows used) with
+ * options already resolved: the validity report checks once for all its runs
+ * (both versions, every bandwidth), a pass over every row each time otherwise.
+ */
+export function validityTestChecked(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  outcome: ArrayLike<number>,
+  cutoff: number,
+  options: ValidityOptions,
+  r: ResolvedOptions,
+  n: number,
+): ValidityOutcome {
   const { windows, cellIds } = validityMomentSets(score, treated, outcome, cutoff, options, r);
   const plusName = r.sign === 1 ? 'above' : 'below';
   const minusName = r.sign === 1 ? 'below' : 'above';
