@@ -8,6 +8,7 @@
 import { EstimateOptions, ValidityOptions } from '../engine';
 import { RangeColumn, rangeColumns, RangeInputError } from '../input/range';
 import { readSettings, Settings } from '../input/settings';
+import { trimBlank } from '../input/cells';
 import { cellPrint, CellPrint, samePrint } from '../input/cellPrint';
 import { BoundedCache } from './cache';
 import { excelError, toExcelError } from './excelError';
@@ -136,7 +137,7 @@ export function flagArgument(v: unknown): boolean {
   if (v === null || v === undefined || v === '') return false;
   if (typeof v === 'boolean') return v;
   if (typeof v === 'number') return v !== 0;
-  const s = String(v).trim().toUpperCase();
+  const s = trimBlank(String(v)).toUpperCase();
   if (s === 'TRUE') return true;
   if (s === 'FALSE') return false;
   throw new RangeInputError(`detail must be TRUE or FALSE; it is ${JSON.stringify(v)}`, 'detail');

@@ -10,7 +10,7 @@
  *   // { kernel: 'uniform', draws: 1999 }
  */
 import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine';
-import { cellNumber, showCell } from './cells';
+import { cellNumber, showCell, trimBlank } from './cells';
 import { errorCode, offsetAddress, RangeInputError } from './range';
 import { Cell } from './table';
 
@@ -65,7 +65,7 @@ const BY_KEY = new Map(SETTINGS.map((s) => [squeeze(s.name), s]));
 
 function text(cell: unknown): string | undefined {
   if (cell === null || cell === undefined) return undefined;
-  const s = String(cell).trim();
+  const s = trimBlank(String(cell));
   return s === '' ? undefined : s;
 }
 

@@ -13,6 +13,7 @@ import { DataBlock } from '../report/workbookPort';
 import { columnLetters } from '../report/formulas';
 import { labelColumn, numericColumn } from '../input/columns';
 import { Table, tableFromRows } from '../input/table';
+import { trimBlank } from '../input/cells';
 import type { CheckInput, CheckOptions } from './engine';
 
 export type Field = 'data' | 'score' | 'treated' | 'outcomes' | 'covariates' | 'cluster' | 'cutoff' | 'eligible' | 'bandwidth' | 'draws' | 'seed';
@@ -77,7 +78,7 @@ export interface ReadyCheck {
 export const nameList = (s: string): string[] =>
   s
     .split(',')
-    .map((x) => x.trim())
+    .map(trimBlank)
     .filter((x) => x !== '');
 
 /** A message of the input layer without the command line's option in front ("--score: …"). */
@@ -91,7 +92,7 @@ export function blockAddress(b: DataBlock): string {
 
 /** A whole number in [lo, hi], or a message. */
 function whole(v: string, what: string, lo: number, hi: number): { n?: number; error?: string } {
-  const t = v.trim();
+  const t = trimBlank(v);
   const n = Number(t);
   if (t === '' || !Number.isInteger(n) || n < lo || n > hi) return { error: `${what} must be a whole number from ${lo} to ${hi}; it is ${t === '' ? 'empty' : JSON.stringify(v)}` };
   return { n };
@@ -108,12 +109,12 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
   const table: Table = tableFromRows(block.rows, { header: block.header, firstRow: block.firstRow });
 
   const one = (field: Field, name: string, role: 'score' | 'treated'): ReturnType<typeof numericColumn> | undefined => {
-    if (name.trim() === '') {
+    if (trimBlank(name) === '') {
       errors[field] = `Type the header of the ${role === 'score' ? 'score' : 'treated'} column.`;
       return undefined;
     }
     try {
-      return numericColumn(table, name.trim(), role);
+      return numericColumn(table, trimBlank(name), role);
     } catch (e) {
       errors[field] = plain(e);
       return undefined;
@@ -138,16 +139,16 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
   if (outcomeNames.length === 0) errors.outcomes = 'Type the header of at least one outcome column.';
   const outcomes = many('outcomes', outcomeNames, 'outcome');
   const covariates = many('covariates', nameList(form.covariates), 'covariate');
-  if (form.cluster.trim() !== '') {
+  if (trimBlank(form.cluster) !== '') {
     try {
       // Checked for its header only (see CLUSTER_NOTE).
-      labelColumn(table, form.cluster.trim(), 'cluster');
+      labelColumn(table, trimBlank(form.cluster), 'cluster');
     } catch (e) {
       errors.cluster = plain(e);
     }
   }
 
-  const c = form.cutoff.trim();
+  const c = trimBlank(form.cutoff);
   const cutoff = Number(c);
   if (c === '' || !Number.isFinite(cutoff)) {
     errors.cutoff = `cutoff must be a number (for example 60); it is ${c === '' ? 'empty' : JSON.stringify(form.cutoff)}`;
@@ -166,9 +167,9 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
 
   let bandwidth: number | undefined;
   if (form.bandwidthMode === 'typed') {
-    const b = Number(form.bandwidth.trim());
-    if (form.bandwidth.trim() === '' || !(b > 0) || !Number.isFinite(b)) {
-      errors.bandwidth = `bandwidth must be a positive number in score units; it is ${form.bandwidth.trim() === '' ? 'empty' : JSON.stringify(form.bandwidth)}`;
+    const b = Number(trimBlank(form.bandwidth));
+    if (trimBlank(form.bandwidth) === '' || !(b > 0) || !Number.isFinite(b)) {
+      errors.bandwidth = `bandwidth must be a positive number in score units; it is ${trimBlank(form.bandwidth) === '' ? 'empty' : JSON.stringify(form.bandwidth)}`;
     } else bandwidth = b;
   }
   const draws = whole(form.draws, 'draws', 99, 99999);

@@ -102,3 +102,10 @@ test('an engine error about a row of an argument names the cell (title rows coun
   const other = Object.assign(new CutlineError('no unit below the cutoff'), { code: 'empty-side', argument: 'cutoff' });
   expect(() => c.result(() => { throw other; })).toThrow(other);
 });
+
+// The one blank rule of cells.ts (trimBlank): a zero-width space or NBSP around a typed TRUE is blank.
+test('flagArgument: TRUE/FALSE framed by zero-width spaces or NBSP', () => {
+  expect(flagArgument('\u200bTRUE\u00a0')).toBe(true);
+  expect(flagArgument('false\u200b')).toBe(false);
+  expect(() => flagArgument('\u200byes')).toThrow(/detail must be TRUE or FALSE/);
+});

@@ -48,3 +48,15 @@ test('every setting has a distinct name and a meaning', () => {
   expect(new Set(names).size).toBe(names.length);
   for (const s of SETTINGS) expect(s.meaning.length).toBeGreaterThan(10);
 });
+
+// The one blank rule of cells.ts (trimBlank): NBSP and the zero-width space are blank like a space.
+test('names and values lose NBSP and zero-width spaces at their ends; a cell of them alone is blank', () => {
+  expect(
+    readSettings([
+      ['\u200bkernel\u00a0', 'uniform\u200b'],
+      ['\u200b', '\u200b'],
+      ['seed', '\u00a0\u200b'],
+      ['draws', '\u200b499\u00a0'],
+    ]),
+  ).toEqual({ kernel: 'uniform', draws: 499 });
+});

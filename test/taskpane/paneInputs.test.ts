@@ -61,4 +61,15 @@ describe('checkForm', () => {
     const { errors } = checkForm(good, { ...block, rows });
     expect(errors.treated).toBe('column "retrofit" (treated), row 7: treated must be 0, 1, TRUE or FALSE, found "2"');
   });
+
+  // The one blank rule of cells.ts (trimBlank): zero-width spaces and NBSP pasted around a typed value are blank.
+  test('names and numbers typed with zero-width spaces or NBSP around them are read as without them', () => {
+    const { errors, ready } = checkForm(
+      { ...good, score: '\u200benergy_burden', outcomes: 'heating_bill\u200b, \u00a0', cutoff: '\u200b60\u00a0', seed: '\u200b7' },
+      block,
+    );
+    expect(errors).toEqual({});
+    expect(ready!.options).toMatchObject({ cutoff: 60, seed: 7 });
+    expect(ready!.input.outcomes.map((o) => o.name)).toEqual(['heating_bill']);
+  });
 });
