@@ -6,6 +6,7 @@
  */
 import { BANDWIDTH_RULES, CheckInput, CheckOptions, CheckResult, CutlineError, KERNEL_NAMES, MAX_DRAWS, MAX_GRID, runCheck, VARIANCE_NAMES } from '../engine';
 import { labelColumn, numericColumn } from '../input/columns';
+import { readMultiples } from '../input/multiples';
 import { choiceOption, numberOption, one, ParsedArgs, required } from './args';
 import { readTable } from './readTable';
 import { Table } from '../input/table';
@@ -22,15 +23,9 @@ export interface CheckSpec {
   options: CheckOptions;
 }
 
-/** `--sensitivity 0.5,0.75,1,1.5,2` or `off`. */
+/** `--sensitivity 0.5,0.75,1,1.5,2` or `off`: read as a settings block reads its sensitivity (src/input/multiples.ts). */
 function sensitivityOption(s: string | undefined): number[] | undefined {
-  if (s === undefined) return undefined;
-  if (s.trim().toLowerCase() === 'off') return [];
-  const parts = s.split(',').map((p) => p.trim());
-  const values = parts.map(Number);
-  const bad = parts.findIndex((p, i) => p === '' || !(values[i] > 0) || !Number.isFinite(values[i]));
-  if (bad >= 0) throw new CutlineError(`--sensitivity must be positive multiples separated by commas, or off; got ${JSON.stringify(parts[bad])}`);
-  return values;
+  return s === undefined ? undefined : readMultiples(s, '--sensitivity');
 }
 
 /** Equal values and equal missing cells on every row. */

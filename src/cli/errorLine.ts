@@ -34,5 +34,6 @@ export function errorLine(e: CutlineError): string {
   let message = withFlags(e.message.replace(/\s*\n\s*/g, ' '));
   if (e.index !== undefined) message = `row ${e.index + 2}: ${message}`;
   const flag = e.argument !== undefined ? FLAGS[e.argument] : undefined;
-  return flag === undefined ? message : `${flag}: ${message}`;
+  // A message of the command line's own ("--sensitivity must be …") names its flag already.
+  return flag === undefined || message.startsWith(flag) ? message : `${flag}: ${message}`;
 }

@@ -11,6 +11,7 @@
  */
 import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine';
 import { cellNumber, showCell, trimBlank } from './cells';
+import { readMultiples } from './multiples';
 import { errorCode, offsetAddress, RangeInputError } from './range';
 import { Cell } from './table';
 
@@ -108,12 +109,11 @@ export function readSettings(cells: unknown[][] | null | undefined, argument = '
       if (!k.choices.includes(v)) badValue(`one of ${k.choices.join(', ')}`);
       (out as Record<string, unknown>)[spec.field] = v;
     } else if ('list' in k) {
-      if (raw.toLowerCase() === 'off' || raw.toLowerCase() === 'none') out.sensitivity = [];
-      else {
-        const parts = raw.split(/[,;\s]+/).filter((p) => p !== '');
-        const values = parts.map(Number);
-        if (values.length === 0 || values.some((v) => !(v > 0) || !Number.isFinite(v))) badValue('positive multiples separated by commas, or off');
-        out.sensitivity = values;
+      // The reader of --sensitivity too (multiples.ts): the same texts accepted, the same words for a bad entry.
+      try {
+        out.sensitivity = readMultiples(raw, `${argument}, ${where(r, 1)}: ${spec.name}`);
+      } catch (e) {
+        throw new RangeInputError((e as Error).message, argument);
       }
     } else {
       const v = cellNumber(cell as Cell);
