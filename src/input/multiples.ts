@@ -12,7 +12,7 @@
  *   readMultiples('0.5,x', '--sensitivity')  // CutlineError: --sensitivity must be positive multiples separated by commas, or off; got "x"
  */
 import { CutlineError } from '../engine';
-import { cellNumber, trimBlank } from './cells';
+import { trimBlank, typedNumber } from './cells';
 
 /** What the multiples must be, after the name of the option or argument. */
 export const MULTIPLES_WANTED = 'positive multiples separated by commas, or off';
@@ -31,9 +31,8 @@ export function readMultiples(text: string, name: string): number[] {
   return values as number[];
 }
 
-/** One entry: a positive finite number by the cell rules (a word such as TRUE or NA is not a multiple). */
+/** One entry: a positive number typed by the cell rules (typedNumber: a word such as TRUE or NA is not a multiple). */
 function multiple(entry: string): number | undefined {
-  if (entry === '' || /^[a-z]/i.test(entry)) return undefined;
-  const v = cellNumber(entry);
-  return typeof v === 'number' && v > 0 ? v : undefined;
+  const v = typedNumber(entry);
+  return v !== undefined && v > 0 ? v : undefined;
 }

@@ -13,7 +13,8 @@ import { DataBlock } from '../report/workbookPort';
 import { columnLetters } from '../report/formulas';
 import { labelColumn, numericColumn } from '../input/columns';
 import { Table, tableFromRows } from '../input/table';
-import { trimBlank } from '../input/cells';
+import { trimBlank, typedNumber } from '../input/cells';
+import { limitProblem } from './engine';
 import type { CheckInput, CheckOptions } from './engine';
 
 export type Field = 'data' | 'score' | 'treated' | 'outcomes' | 'covariates' | 'cluster' | 'cutoff' | 'eligible' | 'bandwidth' | 'draws' | 'seed';
@@ -90,11 +91,12 @@ export function blockAddress(b: DataBlock): string {
   return `${b.sheet}!${columnLetters(b.firstCol)}${b.firstRow - 1}:${columnLetters(b.firstCol + b.header.length - 1)}${last}`;
 }
 
-/** A whole number in [lo, hi], or a message. */
-function whole(v: string, what: string, lo: number, hi: number): { n?: number; error?: string } {
+/** A whole number within the engine's limits for the option (the command line checks the same), or a message. */
+function whole(v: string, what: 'draws' | 'seed'): { n?: number; error?: string } {
   const t = trimBlank(v);
-  const n = Number(t);
-  if (t === '' || !Number.isInteger(n) || n < lo || n > hi) return { error: `${what} must be a whole number from ${lo} to ${hi}; it is ${t === '' ? 'empty' : JSON.stringify(v)}` };
+  const n = typedNumber(t);
+  const problem = limitProblem(what, n ?? NaN);
+  if (problem) return { error: `${what} ${problem}; it is ${t === '' ? 'empty' : JSON.stringify(v)}` };
   return { n };
 }
 
@@ -149,7 +151,7 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
   }
 
   const c = trimBlank(form.cutoff);
-  const cutoff = Number(c);
+  const cutoff = typedNumber(c) ?? NaN;
   if (c === '' || !Number.isFinite(cutoff)) {
     errors.cutoff = `cutoff must be a number (for example 60); it is ${c === '' ? 'empty' : JSON.stringify(form.cutoff)}`;
   } else if (score) {
@@ -167,14 +169,14 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
 
   let bandwidth: number | undefined;
   if (form.bandwidthMode === 'typed') {
-    const b = Number(trimBlank(form.bandwidth));
+    const b = typedNumber(form.bandwidth) ?? NaN;
     if (trimBlank(form.bandwidth) === '' || !(b > 0) || !Number.isFinite(b)) {
       errors.bandwidth = `bandwidth must be a positive number in score units; it is ${trimBlank(form.bandwidth) === '' ? 'empty' : JSON.stringify(form.bandwidth)}`;
     } else bandwidth = b;
   }
-  const draws = whole(form.draws, 'draws', 99, 99999);
+  const draws = whole(form.draws, 'draws');
   if (draws.error) errors.draws = draws.error;
-  const seed = whole(form.seed, 'seed', 0, 2 ** 31 - 1);
+  const seed = whole(form.seed, 'seed');
   if (seed.error) errors.seed = seed.error;
 
   if (Object.keys(errors).length > 0 || !score || !treated) return { errors };

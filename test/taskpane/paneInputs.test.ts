@@ -40,7 +40,7 @@ describe('checkForm', () => {
     ['a non-numeric cutoff', { ...good, cutoff: 'sixty' }, block, 'cutoff', /cutoff must be a number \(for example 60\); it is "sixty"/],
     ['a cutoff outside the scores', { ...good, cutoff: '80' }, block, 'cutoff', /cutoff 80 is outside the scores \(52 to 70\)/],
     ['a typed bandwidth that is not positive', { ...good, bandwidthMode: 'typed', bandwidth: '-2' }, block, 'bandwidth', /bandwidth must be a positive number/],
-    ['draws not whole', { ...good, draws: '99.5' }, block, 'draws', /draws must be a whole number from 99 to 99999/],
+    ['draws not whole', { ...good, draws: '99.5' }, block, 'draws', /draws must be a whole number of at least 1; it is "99.5"/],
   ] as const)('%s: a message beside its field, no check', (_what, form, data, field, message) => {
     const { errors, ready } = checkForm(form as PaneForm, data as DataBlock | Error | undefined);
     expect(errors[field as keyof typeof errors]).toMatch(message);
