@@ -9,7 +9,7 @@
  *   readSettings([['kernel', 'uniform'], ['draws', 1999], ['', '']], 'settings')
  *   // { kernel: 'uniform', draws: 1999 }
  */
-import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine';
+import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, limitProblem, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine';
 import { cellNumber, showCell, trimBlank } from './cells';
 import { readMultiples } from './multiples';
 import { errorCode, offsetAddress, RangeInputError } from './range';
@@ -100,9 +100,10 @@ export function readSettings(cells: unknown[][] | null | undefined, argument = '
     if (code !== undefined) throw new RangeInputError(`${argument}, ${where(r, 1)}: ${spec.name} holds the error ${code}`, argument);
     const raw = text(cell);
     if (raw === undefined) return; // a blank value leaves the default
-    const badValue = (wanted: string): never => {
-      throw new RangeInputError(`${argument}, ${where(r, 1)}: ${spec.name} must be ${wanted}; it holds ${showCell(cell as Cell)}`, argument);
+    const bad = (problem: string): never => {
+      throw new RangeInputError(`${argument}, ${where(r, 1)}: ${spec.name} ${problem}; it holds ${showCell(cell as Cell)}`, argument);
     };
+    const badValue = (wanted: string): never => bad(`must be ${wanted}`);
     const k = spec.kind;
     if ('choices' in k) {
       const v = raw.toLowerCase();
@@ -127,6 +128,10 @@ export function readSettings(cells: unknown[][] | null | undefined, argument = '
           want === 'positive' ? 'a positive number' : want === 'whole' ? 'a whole number' : want === 'nonnegative' ? 'a number of at least 0' : 'a number between 0 and 1',
         );
       }
+      // The engine's limits (as the command line and the task pane check them): refused here, naming the cell.
+      const field = spec.field;
+      const problem = field === 'draws' || field === 'seed' || field === 'grid' ? limitProblem(field, v as number) : null;
+      if (problem) bad(problem);
       (out as Record<string, unknown>)[spec.field] = v;
     }
   });
