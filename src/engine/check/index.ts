@@ -8,5 +8,5 @@ export type { BalanceRow, BinnedSeries, DensitySection } from './designChecks';
 export { outcomeEstimates, outcomeValidity } from './outcomeSections';
 export { settle } from './setting';
 export type { CheckInput, CodeColumn, DataColumn } from './setting';
-export { DEFAULT_SENSITIVITY, blameDonut, checkMultiples, complierWarnings, donutMask, eligibleSide, estimatesBandwidth, testBandwidth, verdictByBandwidth } from './steps';
+export { DEFAULT_SENSITIVITY, blameDonut, checkMultiples, complierWarnings, donutMask, eligibleSide, estimatesBandwidth, ruleBandwidth, testBandwidth, verdictByBandwidth } from './steps';
 export type { Eligible } from './steps';
