@@ -4,6 +4,8 @@
  * comes from a CSV text, an exceljs worksheet or a worksheet range, so that
  * validation (columns.ts) and its messages are the same in every face.
  */
+import { trimBlank } from './cells';
+
 export type Cell = string | number | boolean | null | undefined;
 
 export interface Table {
@@ -22,7 +24,7 @@ export interface Table {
 
 /** A table over arrays of arrays; the first row is the header unless `header` is given. */
 export function tableFromRows(rows: Cell[][], options: { header?: string[]; firstRow?: number } = {}): Table {
-  const header = options.header ?? (rows[0] ?? []).map((h) => (h === null || h === undefined ? '' : String(h).trim()));
+  const header = options.header ?? (rows[0] ?? []).map((h) => (h === null || h === undefined ? '' : trimBlank(String(h))));
   const body = options.header ? rows : rows.slice(1);
   return {
     header,

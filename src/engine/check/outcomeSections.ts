@@ -7,6 +7,7 @@
 import { complierCdfArms, complierDensity, complierMeans, complierGrid } from '../compliers';
 import { CutoffEstimates, estimatesAtCutoff, KernelName } from '../fit';
 import { MultiplierName, validityReport } from '../validity';
+import { addNew } from './addNew';
 import type { ComplierSummary, ValiditySummary } from './check';
 import { CheckInput, DataColumn, Prepared, Setting } from './setting';
 import { complierWarnings, sensitivityMultiples } from './steps';
@@ -76,7 +77,7 @@ export function outcomeValidity(
     cells: vp.cells,
     cellLabels: input.within?.labels,
   });
-  for (const w of v.warnings) if (!warnings.includes(w)) warnings.push(w);
+  addNew(warnings, v.warnings);
   const summary: ValiditySummary = input.within ? { ...v, within: input.within.name } : v;
   return { summary, warnings };
 }

@@ -36,6 +36,7 @@
  */
 import { boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
+import { VALIDITY_LIMITS as LIMITS } from '../limits';
 import { formatNumber } from '../numeric';
 import { intervalClass } from './intervalClass';
 import { MultiplierName, bootstrapMaxima, selection } from './validityBootstrap';
@@ -112,10 +113,6 @@ export interface ResolvedOptions {
   sign: 1 | -1;
 }
 
-/** Upper limits: beyond them a check runs for hours or exhausts memory (draws × intervals, G² intervals). */
-export const MAX_DRAWS = 100000;
-export const MAX_GRID = 1000;
-
 /** Checks the options and fills defaults; errors name the option. */
 export function resolveValidityOptions(o: ValidityOptions): ResolvedOptions {
   const draws = o.draws ?? 999;
@@ -124,12 +121,12 @@ export function resolveValidityOptions(o: ValidityOptions): ResolvedOptions {
   const trim = o.trim ?? 0.1;
   const multiplier = o.multiplier ?? 'normal';
   const sign = o.sign ?? 1;
-  if (!Number.isInteger(draws) || draws < 1) throw new CutlineError(`draws must be a whole number of at least 1, got ${draws}`);
-  if (draws > MAX_DRAWS) throw new CutlineError(`draws must be at most ${MAX_DRAWS}, got ${draws}`);
-  if (!Number.isInteger(seed) || seed < 0 || seed > 4294967295)
-    throw new CutlineError(`seed must be a whole number from 0 to 4294967295, got ${seed}`);
-  if (!Number.isInteger(grid) || grid < 2) throw new CutlineError(`grid must be a whole number of at least 2, got ${grid}`);
-  if (grid > MAX_GRID) throw new CutlineError(`grid must be at most ${MAX_GRID}, got ${grid}`);
+  if (!Number.isInteger(draws) || draws < LIMITS.draws.min) throw new CutlineError(`draws must be a whole number of at least ${LIMITS.draws.min}, got ${draws}`);
+  if (draws > LIMITS.draws.max) throw new CutlineError(`draws must be at most ${LIMITS.draws.max}, got ${draws}`);
+  if (!Number.isInteger(seed) || seed < LIMITS.seed.min || seed > LIMITS.seed.max)
+    throw new CutlineError(`seed must be a whole number from ${LIMITS.seed.min} to ${LIMITS.seed.max}, got ${seed}`);
+  if (!Number.isInteger(grid) || grid < LIMITS.grid.min) throw new CutlineError(`grid must be a whole number of at least ${LIMITS.grid.min}, got ${grid}`);
+  if (grid > LIMITS.grid.max) throw new CutlineError(`grid must be at most ${LIMITS.grid.max}, got ${grid}`);
   if (!(trim >= 0) || !Number.isFinite(trim)) throw new CutlineError(`trim must be a number of at least 0, got ${trim}`);
   if (multiplier !== 'normal' && multiplier !== 'rademacher')
     throw new CutlineError(`multiplier must be "normal" or "rademacher", got "${String(multiplier)}"`);
