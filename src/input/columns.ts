@@ -89,13 +89,15 @@ export function numericColumn(table: Table, name: string, role: ColumnRole): Num
   if (table.fastColumn) {
     const { values, missing, slow } = table.fastColumn(c);
     // The first bad row must be the one named: the fast reads of binary values are checked in row order too.
-    let s = 0;
-    for (let r = 0; r < n; r++) {
-      if (s < slow.length && slow[s] === r) {
-        read(r, values, missing);
-        s++;
-      } else if (binary && !missing[r] && values[r] !== 0 && values[r] !== 1) read(r, values, missing);
-    }
+    if (binary) {
+      let s = 0;
+      for (let r = 0; r < n; r++) {
+        if (s < slow.length && slow[s] === r) {
+          read(r, values, missing);
+          s++;
+        } else if (!missing[r] && values[r] !== 0 && values[r] !== 1) read(r, values, missing);
+      }
+    } else for (const r of slow) read(r, values, missing);
     requireSomeValue(table, c, role, missing);
     return { name: table.header[c], values, missing };
   }

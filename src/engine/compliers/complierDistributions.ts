@@ -72,14 +72,7 @@ function checkWindow(win: Window, treated: ArrayLike<number>, outcome: ArrayLike
   if (sign !== 1 && sign !== -1) throw new CutlineError(`sign must be 1 (eligibility above) or -1 (below), got ${String(sign)}`);
   const plus = sign === 1 ? win.above : win.below;
   const minus = sign === 1 ? win.below : win.above;
-  for (const side of [plus, minus]) {
-    const d = gathered(side, treated);
-    const y = gathered(side, outcome);
-    for (let t = 0; t < d.length; t++) {
-      if (d[t] !== 0 && d[t] !== 1) throw new CutlineError(`treated must be 0 or 1, got ${d[t]} at row ${side.index[t] + 1}`);
-      if (!Number.isFinite(y[t])) throw new CutlineError(`outcome is not a finite number at row ${side.index[t] + 1}`);
-    }
-  }
+  // The columns were checked where they entered the engine (checkColumns at every entry point and in a check's settle).
   // Σ ω·D per side from the gathered column (the same sums, read in window order).
   const takeupSide = (side: SideFit): number => {
     const w = side.coef1[0];
