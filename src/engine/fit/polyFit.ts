@@ -67,25 +67,25 @@ export interface PolyOptions {
  * the largest |x − centre| among units of positive weight (`fallback` if none).
  */
 export function polyFrame(x: ArrayLike<number>, about?: number, weights?: ArrayLike<number>, fallback = 1): PolyFrame {
-  const n = x.length;
-  let centre = about;
-  if (centre === undefined) {
-    let s = 0;
-    let m = 0;
-    for (let i = 0; i < n; i++) {
-      if (weights && !(weights[i] > 0)) continue;
-      s += x[i];
-      m++;
-    }
-    centre = m > 0 ? s / m : 0;
-  }
+  const centre = about ?? meanOf(x, weights);
   let scale = 0;
-  for (let i = 0; i < n; i++) {
-    if (weights && !(weights[i] > 0)) continue;
+  for (let i = 0; i < x.length; i++) {
     const d = Math.abs(x[i] - centre);
-    if (d > scale) scale = d;
+    if (d > scale && (!weights || weights[i] > 0)) scale = d;
   }
   return { centre, scale: scale > 0 ? scale : fallback };
+}
+
+/** The mean of x over units of positive weight (0 if none). */
+function meanOf(x: ArrayLike<number>, weights?: ArrayLike<number>): number {
+  let s = 0;
+  let m = 0;
+  for (let i = 0; i < x.length; i++) {
+    if (weights && !(weights[i] > 0)) continue;
+    s += x[i];
+    m++;
+  }
+  return m > 0 ? s / m : 0;
 }
 
 /** The moments of a degree-p fit in `frame` (with the column y's when given): one pass over the units. */
