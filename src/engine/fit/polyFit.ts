@@ -88,35 +88,71 @@ function meanOf(x: ArrayLike<number>, weights?: ArrayLike<number>): number {
   return m > 0 ? s / m : 0;
 }
 
-/** The moments of a degree-p fit in `frame` (with the column y's when given): one pass over the units. */
+// Units per block of the compensated sums (see addBlock).
+const BLOCK = 256;
+
+/**
+ * Adds a block's plain partial sums `part` into `total` with Kahan's
+ * compensation (`comp` carries the lost low-order parts), then clears `part`.
+ * A global fit sums over up to millions of units, and the level of y cancels
+ * in the solve (the curvature of a side is tiny beside its mean): plain sums
+ * lost up to 1e−10 of the curvature at a million rows. Blocks of plain sums
+ * keep the cost of a plain pass; the error is that of one block.
+ */
+function addBlock(total: Float64Array, comp: Float64Array, part: Float64Array): void {
+  for (let k = 0; k < part.length; k++) {
+    const v = part[k] - comp[k];
+    const t = total[k] + v;
+    comp[k] = t - total[k] - v;
+    total[k] = t;
+    part[k] = 0;
+  }
+}
+
+/**
+ * The moments of a degree-p fit in `frame` (with the column y's when given): one pass over the units.
+ * Sums are compensated (addBlock) except on the local fits' path (weights, no y, p ≤ 2), whose
+ * windows' moments carry no cancelling level and are reproduced as they always were.
+ */
 export function polyMoments(x: ArrayLike<number>, degree: number, frame: PolyFrame, options: PolyOptions & { y?: ArrayLike<number> } = {}): PolyMoments {
   const { weights, step, y } = options;
   const { centre, scale } = frame;
   const n = x.length;
-  if (degree <= 2 && step === undefined) {
-    // The hot paths, unrolled: Σ w uʲ to j = 4 whatever p ≤ 2 (one pass serves the line and the curve).
+  if (degree <= 2 && step === undefined && weights && !y) {
+    // The local fits' hot path, unrolled: Σ w uʲ to j = 4 whatever p ≤ 2 (one pass serves the line and the curve).
     let m0 = 0;
     let m1 = 0;
     let m2 = 0;
     let m3 = 0;
     let m4 = 0;
-    let c0 = 0;
-    let c1 = 0;
-    let c2 = 0;
-    if (weights && !y) {
-      for (let i = 0; i < n; i++) {
-        const u = (x[i] - centre) / scale;
-        const k = weights[i];
-        const ku = k * u;
-        const ku2 = ku * u;
-        m0 += k;
-        m1 += ku;
-        m2 += ku2;
-        m3 += ku2 * u;
-        m4 += ku2 * u * u;
-      }
-    } else if (!weights && y) {
-      for (let i = 0; i < n; i++) {
+    for (let i = 0; i < n; i++) {
+      const u = (x[i] - centre) / scale;
+      const k = weights[i];
+      const ku = k * u;
+      const ku2 = ku * u;
+      m0 += k;
+      m1 += ku;
+      m2 += ku2;
+      m3 += ku2 * u;
+      m4 += ku2 * u * u;
+    }
+    return { degree, frame, gram: Float64Array.of(m0, m1, m2, m3, m4).subarray(0, 2 * degree + 1) };
+  }
+  if (degree === 2 && step === undefined && !weights && y) {
+    // The trend guard's path (a million rows), unrolled: Σ uʲ (j ≤ 4) and Σ uʲ y (j ≤ 2).
+    const total = new Float64Array(7);
+    const comp = new Float64Array(7);
+    const part = new Float64Array(7);
+    for (let b = 0; b < n; b += BLOCK) {
+      const e = Math.min(n, b + BLOCK);
+      let m1 = 0;
+      let m2 = 0;
+      let m3 = 0;
+      let m4 = 0;
+      let c0 = 0;
+      let c1 = 0;
+      let c2 = 0;
+      for (let i = b; i < e; i++) {
         const u = (x[i] - centre) / scale;
         const u2 = u * u;
         const v = y[i];
@@ -128,77 +164,81 @@ export function polyMoments(x: ArrayLike<number>, degree: number, frame: PolyFra
         c1 += u * v;
         c2 += u2 * v;
       }
-      m0 = n;
-    } else {
-      for (let i = 0; i < n; i++) {
-        const k = weights ? weights[i] : 1;
-        if (k === 0) continue;
-        const u = (x[i] - centre) / scale;
-        const ku = k * u;
-        const ku2 = ku * u;
-        m0 += k;
-        m1 += ku;
-        m2 += ku2;
-        m3 += ku2 * u;
-        m4 += ku2 * u * u;
-        if (y) {
-          const v = y[i];
-          c0 += k * v;
-          c1 += ku * v;
-          c2 += ku2 * v;
-        }
-      }
+      part[0] = m1;
+      part[1] = m2;
+      part[2] = m3;
+      part[3] = m4;
+      part[4] = c0;
+      part[5] = c1;
+      part[6] = c2;
+      addBlock(total, comp, part);
     }
-    return {
-      degree,
-      frame,
-      gram: Float64Array.of(m0, m1, m2, m3, m4).subarray(0, 2 * degree + 1),
-      cross: y ? Float64Array.of(c0, c1, c2).subarray(0, degree + 1) : undefined,
-    };
+    return { degree, frame, gram: Float64Array.of(n, total[0], total[1], total[2], total[3]), cross: total.slice(4, 7) };
   }
+  // Everything else: one accumulator vector [Σ w uʲ (j ≤ 2p) | Σ_{x ≥ step} w uʲ (j ≤ p) | Σ w uʲ y (j ≤ p) | Σ_{x ≥ step} w y].
   const q = degree + 1;
-  const gram = new Float64Array(2 * degree + 1);
-  const stepGram = step === undefined ? undefined : new Float64Array(q);
-  const cross = y ? new Float64Array(q + (step === undefined ? 0 : 1)) : undefined;
-  for (let i = 0; i < n; i++) {
-    const k = weights ? weights[i] : 1;
-    if (k === 0) continue;
-    const u = (x[i] - centre) / scale;
-    const on = step !== undefined && x[i] >= step;
-    const v = y ? y[i] : 0;
-    let pw = k;
-    for (let a = 0; a <= 2 * degree; a++) {
-      gram[a] += pw;
-      if (a < q) {
-        if (on) stepGram![a] += pw;
-        if (cross) cross[a] += pw * v;
+  const g = 2 * degree + 1;
+  const sg = step === undefined ? 0 : q;
+  const cr = y ? q + (step === undefined ? 0 : 1) : 0;
+  const total = new Float64Array(g + sg + cr);
+  const comp = new Float64Array(total.length);
+  const part = new Float64Array(total.length);
+  for (let b = 0; b < n; b += BLOCK) {
+    const e = Math.min(n, b + BLOCK);
+    for (let i = b; i < e; i++) {
+      const k = weights ? weights[i] : 1;
+      if (k === 0) continue;
+      const u = (x[i] - centre) / scale;
+      const on = step !== undefined && x[i] >= step;
+      const v = y ? y[i] : 0;
+      let pw = k;
+      for (let a = 0; a < g; a++) {
+        part[a] += pw;
+        if (a < q) {
+          if (on) part[g + a] += pw;
+          if (y) part[g + sg + a] += pw * v;
+        }
+        pw *= u;
       }
-      pw *= u;
+      if (on && y) part[g + sg + q] += k * v;
     }
-    if (on && cross) cross[q] += k * v;
+    addBlock(total, comp, part);
   }
-  return { degree, frame, gram, stepGram, cross };
+  return {
+    degree,
+    frame,
+    gram: total.slice(0, g),
+    stepGram: sg ? total.slice(g, g + sg) : undefined,
+    cross: cr ? total.slice(g + sg) : undefined,
+  };
 }
 
-/** Σ w u^j y (j ≤ p, then Σ_{x ≥ step} w y with a step): a new column on a fit whose Γ⁻¹ is known. */
+/** Σ w u^j y (j ≤ p, then Σ_{x ≥ step} w y with a step), compensated: a new column on a fit whose Γ⁻¹ is known. */
 export function polyCross(x: ArrayLike<number>, y: ArrayLike<number>, degree: number, frame: PolyFrame, options: PolyOptions = {}): Float64Array {
   const { weights, step } = options;
   const { centre, scale } = frame;
   const q = degree + 1;
-  const out = new Float64Array(q + (step === undefined ? 0 : 1));
-  for (let i = 0; i < x.length; i++) {
-    const k = weights ? weights[i] : 1;
-    if (k === 0) continue;
-    const u = (x[i] - centre) / scale;
-    const kv = k * y[i];
-    let pw = kv;
-    for (let a = 0; a < q; a++) {
-      out[a] += pw;
-      pw *= u;
+  const n = x.length;
+  const total = new Float64Array(q + (step === undefined ? 0 : 1));
+  const comp = new Float64Array(total.length);
+  const part = new Float64Array(total.length);
+  for (let b = 0; b < n; b += BLOCK) {
+    const e = Math.min(n, b + BLOCK);
+    for (let i = b; i < e; i++) {
+      const k = weights ? weights[i] : 1;
+      if (k === 0) continue;
+      const u = (x[i] - centre) / scale;
+      const kv = k * y[i];
+      let pw = kv;
+      for (let a = 0; a < q; a++) {
+        part[a] += pw;
+        pw *= u;
+      }
+      if (step !== undefined && x[i] >= step) part[q] += kv;
     }
-    if (step !== undefined && x[i] >= step) out[q] += kv;
+    addBlock(total, comp, part);
   }
-  return out;
+  return total;
 }
 
 /** Γ⁻¹ of the fit of degree d ≤ the moments' (the step's row and column last), or null when Γ is singular. */
