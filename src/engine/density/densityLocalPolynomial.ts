@@ -140,7 +140,8 @@ interface SideWindow {
 
 /** Slope weights (x units) of the degree-p triangular fit on one side (the local fit at the cutoff, polyFit.ts). */
 function slopeWeights(x: Float64Array, h: number, p: number, side: string): Float64Array {
-  const k = x.map((v) => 1 - Math.abs(v / h));
+  const k = new Float64Array(x.length);
+  for (let i = 0; i < x.length; i++) k[i] = 1 - Math.abs(x[i] / h);
   const frame = polyFrame(x, 0, undefined, h);
   const inv = polyInverse(polyMoments(x, p, frame, { weights: k }));
   if (!inv) throw new CutlineError(`the density window ${side} the cutoff cannot be fitted (too few distinct scores); widen the density bandwidth`);

@@ -111,32 +111,45 @@ function addBlock(total: Float64Array, comp: Float64Array, part: Float64Array): 
 
 /**
  * The moments of a degree-p fit in `frame` (with the column y's when given): one pass over the units.
- * Sums are compensated (addBlock) except on the local fits' path (weights, no y, p ≤ 2), whose
- * windows' moments carry no cancelling level and are reproduced as they always were.
+ * Sums are compensated (addBlock) except on the local fits' paths (weights, no column, no step),
+ * whose windows' moments carry no cancelling level and are summed plainly, as they always were.
  */
 export function polyMoments(x: ArrayLike<number>, degree: number, frame: PolyFrame, options: PolyOptions & { y?: ArrayLike<number> } = {}): PolyMoments {
   const { weights, step, y } = options;
   const { centre, scale } = frame;
   const n = x.length;
-  if (degree <= 2 && step === undefined && weights && !y) {
-    // The local fits' hot path, unrolled: Σ w uʲ to j = 4 whatever p ≤ 2 (one pass serves the line and the curve).
-    let m0 = 0;
-    let m1 = 0;
-    let m2 = 0;
-    let m3 = 0;
-    let m4 = 0;
+  if (step === undefined && weights && !y) {
+    // The local fits' paths (side fits, density slopes): plain sums, as they always were.
+    if (degree <= 2) {
+      // The hot path, unrolled: Σ w uʲ to j = 4 whatever p ≤ 2 (one pass serves the line and the curve).
+      let m0 = 0;
+      let m1 = 0;
+      let m2 = 0;
+      let m3 = 0;
+      let m4 = 0;
+      for (let i = 0; i < n; i++) {
+        const u = (x[i] - centre) / scale;
+        const k = weights[i];
+        const ku = k * u;
+        const ku2 = ku * u;
+        m0 += k;
+        m1 += ku;
+        m2 += ku2;
+        m3 += ku2 * u;
+        m4 += ku2 * u * u;
+      }
+      return { degree, frame, gram: Float64Array.of(m0, m1, m2, m3, m4).subarray(0, 2 * degree + 1) };
+    }
+    const gram = new Float64Array(2 * degree + 1);
     for (let i = 0; i < n; i++) {
       const u = (x[i] - centre) / scale;
-      const k = weights[i];
-      const ku = k * u;
-      const ku2 = ku * u;
-      m0 += k;
-      m1 += ku;
-      m2 += ku2;
-      m3 += ku2 * u;
-      m4 += ku2 * u * u;
+      let pw = weights[i];
+      for (let a = 0; a < gram.length; a++) {
+        gram[a] += pw;
+        pw *= u;
+      }
     }
-    return { degree, frame, gram: Float64Array.of(m0, m1, m2, m3, m4).subarray(0, 2 * degree + 1) };
+    return { degree, frame, gram };
   }
   if (degree === 2 && step === undefined && !weights && y) {
     // The trend guard's path (a million rows), unrolled: Σ uʲ (j ≤ 4) and Σ uʲ y (j ≤ 2).
@@ -185,6 +198,18 @@ export function polyMoments(x: ArrayLike<number>, degree: number, frame: PolyFra
   const part = new Float64Array(total.length);
   for (let b = 0; b < n; b += BLOCK) {
     const e = Math.min(n, b + BLOCK);
+    if (!y && step === undefined && !weights) {
+      for (let i = b; i < e; i++) {
+        const u = (x[i] - centre) / scale;
+        let pw = 1;
+        for (let a = 0; a < g; a++) {
+          part[a] += pw;
+          pw *= u;
+        }
+      }
+      addBlock(total, comp, part);
+      continue;
+    }
     for (let i = b; i < e; i++) {
       const k = weights ? weights[i] : 1;
       if (k === 0) continue;
@@ -322,6 +347,12 @@ export function coefficientWeights(
     for (let i = 0; i < n; i++) {
       const u = (x[i] - centre) / scale;
       o[i] = (c0 + u * (c1 + u * c2)) * weights[i];
+    }
+  } else if (q === 4) {
+    const [c0, c1, c2, c3] = c;
+    for (let i = 0; i < n; i++) {
+      const u = (x[i] - centre) / scale;
+      o[i] = (c0 + u * (c1 + u * (c2 + u * c3))) * weights[i];
     }
   } else {
     for (let i = 0; i < n; i++) {
