@@ -116,79 +116,101 @@ function addBlock(total: Float64Array, comp: Float64Array, part: Float64Array): 
  */
 export function polyMoments(x: ArrayLike<number>, degree: number, frame: PolyFrame, options: PolyOptions & { y?: ArrayLike<number> } = {}): PolyMoments {
   const { weights, step, y } = options;
+  // Each path is its own function, so that each loop is compiled for the one case it serves.
+  if (step === undefined && weights && !y) return localMoments(x, degree, frame, weights);
+  if (degree === 2 && step === undefined && !weights && y) return quadraticMoments(x, y, frame);
+  return compensatedMoments(x, degree, frame, options);
+}
+
+/** The local fits' moments Σ w uʲ (weights, no column), summed plainly, as they always were. */
+function localMoments(x: ArrayLike<number>, degree: number, frame: PolyFrame, weights: ArrayLike<number>): PolyMoments {
+  return degree <= 2 ? localMoments2(x, degree, frame, weights) : localMomentsAny(x, degree, frame, weights);
+}
+
+/** The hot path (side fits), unrolled: Σ w uʲ to j = 4 whatever p ≤ 2 (one pass serves the line and the curve). */
+function localMoments2(x: ArrayLike<number>, degree: number, frame: PolyFrame, weights: ArrayLike<number>): PolyMoments {
   const { centre, scale } = frame;
   const n = x.length;
-  if (step === undefined && weights && !y) {
-    // The local fits' paths (side fits, density slopes): plain sums, as they always were.
-    if (degree <= 2) {
-      // The hot path, unrolled: Σ w uʲ to j = 4 whatever p ≤ 2 (one pass serves the line and the curve).
-      let m0 = 0;
-      let m1 = 0;
-      let m2 = 0;
-      let m3 = 0;
-      let m4 = 0;
-      for (let i = 0; i < n; i++) {
-        const u = (x[i] - centre) / scale;
-        const k = weights[i];
-        const ku = k * u;
-        const ku2 = ku * u;
-        m0 += k;
-        m1 += ku;
-        m2 += ku2;
-        m3 += ku2 * u;
-        m4 += ku2 * u * u;
-      }
-      return { degree, frame, gram: Float64Array.of(m0, m1, m2, m3, m4).subarray(0, 2 * degree + 1) };
+  let m0 = 0;
+  let m1 = 0;
+  let m2 = 0;
+  let m3 = 0;
+  let m4 = 0;
+  for (let i = 0; i < n; i++) {
+    const u = (x[i] - centre) / scale;
+    const k = weights[i];
+    const ku = k * u;
+    const ku2 = ku * u;
+    m0 += k;
+    m1 += ku;
+    m2 += ku2;
+    m3 += ku2 * u;
+    m4 += ku2 * u * u;
+  }
+  return { degree, frame, gram: Float64Array.of(m0, m1, m2, m3, m4).subarray(0, 2 * degree + 1) };
+}
+
+function localMomentsAny(x: ArrayLike<number>, degree: number, frame: PolyFrame, weights: ArrayLike<number>): PolyMoments {
+  const { centre, scale } = frame;
+  const gram = new Float64Array(2 * degree + 1);
+  for (let i = 0; i < x.length; i++) {
+    const u = (x[i] - centre) / scale;
+    let pw = weights[i];
+    for (let a = 0; a < gram.length; a++) {
+      gram[a] += pw;
+      pw *= u;
     }
-    const gram = new Float64Array(2 * degree + 1);
-    for (let i = 0; i < n; i++) {
+  }
+  return { degree, frame, gram };
+}
+
+/** Σ uʲ (j ≤ 4) and Σ uʲ y (j ≤ 2), unweighted, compensated: the trend guard's path (a million rows). */
+function quadraticMoments(x: ArrayLike<number>, y: ArrayLike<number>, frame: PolyFrame): PolyMoments {
+  const { centre, scale } = frame;
+  const n = x.length;
+  const degree = 2;
+  const total = new Float64Array(7);
+  const comp = new Float64Array(7);
+  const part = new Float64Array(7);
+  for (let b = 0; b < n; b += BLOCK) {
+    const e = Math.min(n, b + BLOCK);
+    let m1 = 0;
+    let m2 = 0;
+    let m3 = 0;
+    let m4 = 0;
+    let c0 = 0;
+    let c1 = 0;
+    let c2 = 0;
+    for (let i = b; i < e; i++) {
       const u = (x[i] - centre) / scale;
-      let pw = weights[i];
-      for (let a = 0; a < gram.length; a++) {
-        gram[a] += pw;
-        pw *= u;
-      }
+      const u2 = u * u;
+      const v = y[i];
+      m1 += u;
+      m2 += u2;
+      m3 += u2 * u;
+      m4 += u2 * u2;
+      c0 += v;
+      c1 += u * v;
+      c2 += u2 * v;
     }
-    return { degree, frame, gram };
+    part[0] = m1;
+    part[1] = m2;
+    part[2] = m3;
+    part[3] = m4;
+    part[4] = c0;
+    part[5] = c1;
+    part[6] = c2;
+    addBlock(total, comp, part);
   }
-  if (degree === 2 && step === undefined && !weights && y) {
-    // The trend guard's path (a million rows), unrolled: Σ uʲ (j ≤ 4) and Σ uʲ y (j ≤ 2).
-    const total = new Float64Array(7);
-    const comp = new Float64Array(7);
-    const part = new Float64Array(7);
-    for (let b = 0; b < n; b += BLOCK) {
-      const e = Math.min(n, b + BLOCK);
-      let m1 = 0;
-      let m2 = 0;
-      let m3 = 0;
-      let m4 = 0;
-      let c0 = 0;
-      let c1 = 0;
-      let c2 = 0;
-      for (let i = b; i < e; i++) {
-        const u = (x[i] - centre) / scale;
-        const u2 = u * u;
-        const v = y[i];
-        m1 += u;
-        m2 += u2;
-        m3 += u2 * u;
-        m4 += u2 * u2;
-        c0 += v;
-        c1 += u * v;
-        c2 += u2 * v;
-      }
-      part[0] = m1;
-      part[1] = m2;
-      part[2] = m3;
-      part[3] = m4;
-      part[4] = c0;
-      part[5] = c1;
-      part[6] = c2;
-      addBlock(total, comp, part);
-    }
-    return { degree, frame, gram: Float64Array.of(n, total[0], total[1], total[2], total[3]), cross: total.slice(4, 7) };
-  }
-  // Everything else: one accumulator vector [Σ w uʲ (j ≤ 2p) | Σ_{x ≥ step} w uʲ (j ≤ p) | Σ w uʲ y (j ≤ p) | Σ_{x ≥ step} w y].
+  return { degree, frame, gram: Float64Array.of(n, total[0], total[1], total[2], total[3]), cross: total.slice(4, 7) };
+}
+
+/** Every other case, compensated (addBlock). */
+function compensatedMoments(x: ArrayLike<number>, degree: number, frame: PolyFrame, options: PolyOptions & { y?: ArrayLike<number> }): PolyMoments {
+  const { weights, step, y } = options;
+  const { centre, scale } = frame;
+  const n = x.length;
+  // One accumulator vector [Σ w uʲ (j ≤ 2p) | Σ_{x ≥ step} w uʲ (j ≤ p) | Σ w uʲ y (j ≤ p) | Σ_{x ≥ step} w y].
   const q = degree + 1;
   const g = 2 * degree + 1;
   const sg = step === undefined ? 0 : q;
@@ -328,41 +350,48 @@ export function coefficientWeights(
   const q = inv.length;
   const n = x.length;
   const { centre, scale } = frame;
-  // Row `row` of the map to x units applied to Γ⁻¹: a polynomial in u, evaluated by Horner's rule.
+  // Row `row` of the map to x units applied to Γ⁻¹: a polynomial in u, evaluated by Horner's rule
+  // (one small function per case, so that each loop is compiled for the one case it serves).
   const c = Array.from({ length: q }, (_, b) => toOrigin(inv.map((r) => r[b]), frame, origin, q - 1, row));
   const o = new Float64Array(n);
-  if (!weights) {
-    for (let i = 0; i < n; i++) {
-      const u = (x[i] - centre) / scale;
-      let s = c[q - 1];
-      for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
-      o[i] = s;
-    }
-  } else if (q === 2) {
-    // Unrolled for the local line and curve (the hot path).
-    const [c0, c1] = c;
-    for (let i = 0; i < n; i++) o[i] = (c0 + c1 * ((x[i] - centre) / scale)) * weights[i];
-  } else if (q === 3) {
-    const [c0, c1, c2] = c;
-    for (let i = 0; i < n; i++) {
-      const u = (x[i] - centre) / scale;
-      o[i] = (c0 + u * (c1 + u * c2)) * weights[i];
-    }
-  } else if (q === 4) {
-    const [c0, c1, c2, c3] = c;
-    for (let i = 0; i < n; i++) {
-      const u = (x[i] - centre) / scale;
-      o[i] = (c0 + u * (c1 + u * (c2 + u * c3))) * weights[i];
-    }
-  } else {
-    for (let i = 0; i < n; i++) {
-      const u = (x[i] - centre) / scale;
-      let s = c[q - 1];
-      for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
-      o[i] = s * weights[i];
-    }
-  }
+  if (!weights) hornerAny(x, c, centre, scale, o);
+  else if (q === 2) hornerLine(x, weights, c[0], c[1], centre, scale, o);
+  else if (q === 3) hornerCurve(x, weights, c[0], c[1], c[2], centre, scale, o);
+  else hornerWeighted(x, weights, c, centre, scale, o);
   return o;
+}
+
+function hornerAny(x: ArrayLike<number>, c: number[], centre: number, scale: number, o: Float64Array): void {
+  const q = c.length;
+  for (let i = 0; i < x.length; i++) {
+    const u = (x[i] - centre) / scale;
+    let s = c[q - 1];
+    for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
+    o[i] = s;
+  }
+}
+
+/** The local line's rows (the hot path). */
+function hornerLine(x: ArrayLike<number>, w: ArrayLike<number>, c0: number, c1: number, centre: number, scale: number, o: Float64Array): void {
+  for (let i = 0; i < x.length; i++) o[i] = (c0 + c1 * ((x[i] - centre) / scale)) * w[i];
+}
+
+/** The local quadratic's rows. */
+function hornerCurve(x: ArrayLike<number>, w: ArrayLike<number>, c0: number, c1: number, c2: number, centre: number, scale: number, o: Float64Array): void {
+  for (let i = 0; i < x.length; i++) {
+    const u = (x[i] - centre) / scale;
+    o[i] = (c0 + u * (c1 + u * c2)) * w[i];
+  }
+}
+
+function hornerWeighted(x: ArrayLike<number>, w: ArrayLike<number>, c: number[], centre: number, scale: number, o: Float64Array): void {
+  const q = c.length;
+  for (let i = 0; i < x.length; i++) {
+    const u = (x[i] - centre) / scale;
+    let s = c[q - 1];
+    for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
+    o[i] = s * w[i];
+  }
 }
 
 /**
