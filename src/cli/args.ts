@@ -4,6 +4,7 @@
  * option. Values come as `--name value` or `--name=value`.
  */
 import { CutlineError } from '../engine';
+import { typedNumber } from '../input/cells';
 
 export interface OptionSpec {
   /** Takes a value (false: a flag). */
@@ -99,14 +100,12 @@ export function required(args: ParsedArgs, name: string, what: string): string {
   return v;
 }
 
-const DECIMAL = /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i;
-
 export function numberOption(args: ParsedArgs, name: string, check?: (v: number) => string | null): number | undefined {
   const s = one(args, name);
   if (s === undefined) return undefined;
-  const v = Number(s.trim());
-  // Decimal only: Number() would also take 0x10, 0b1 and 0o7, which no cell accepts either (cells.ts).
-  if (!DECIMAL.test(s.trim()) || !Number.isFinite(v)) throw new CutlineError(`--${name} must be a number, got ${JSON.stringify(s)}`);
+  // Read as the task pane reads a typed number (cells.ts): decimal only, no 0x10, 0b1, 0o7 or Infinity.
+  const v = typedNumber(s);
+  if (v === undefined) throw new CutlineError(`--${name} must be a number, got ${JSON.stringify(s)}`);
   const problem = check?.(v);
   if (problem) throw new CutlineError(`--${name} ${problem}, got ${s}`);
   return v;

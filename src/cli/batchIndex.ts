@@ -5,7 +5,7 @@
  * is checked with the same column names.
  */
 import { Headline } from '../report/summaryTypes';
-import { num, pval } from '../report/numberText';
+import { num, pIs, pval } from '../report/numberText';
 import { escapeMarkup as esc } from '../report/escapeMarkup';
 
 export interface IndexRow {
@@ -52,16 +52,16 @@ export function indexHtml(rows: IndexRow[], outcomeNames: string[]): string {
         return `<tr class="failed"><th scope="row">${esc(r.file)}</th><td colspan="${head.length - 1}">error: ${esc(r.error ?? 'unknown')}</td></tr>`;
       }
       const cells = [
-        `${num(h.takeup)} (p ${pval(h.takeup_pvalue)})`,
+        `${num(h.takeup)} (${esc(pIs(h.takeup_pvalue))})`,
         ...h.outcomes.flatMap((o) => [
           `${num(o.effect)} [${num(o.ci_robust[0])}, ${num(o.ci_robust[1])}]`,
           o.validity_pvalue === undefined
             ? 'not applicable'
             : o.rejects
-              ? `<span class="reject">contradicted (p ${pval(o.validity_pvalue)})</span>`
-              : `not contradicted (p ${pval(o.validity_pvalue)})`,
+              ? `<span class="reject">contradicted (${esc(pIs(o.validity_pvalue))})</span>`
+              : `not contradicted (${esc(pIs(o.validity_pvalue))})`,
         ]),
-        h.density_pvalue === undefined ? '–' : pval(h.density_pvalue),
+        h.density_pvalue === undefined ? '–' : esc(pval(h.density_pvalue)),
         r.reports.map((p) => `<a href="${esc(encodeURI(p))}">${esc(p)}</a>`).join('<br>'),
       ];
       return `<tr><th scope="row">${esc(r.file)}</th>${cells.map((c, i) => `<td${i === cells.length - 1 ? '' : ' class="num"'}>${i === cells.length - 1 || c.startsWith('<span') ? c : esc(c)}</td>`).join('')}</tr>`;

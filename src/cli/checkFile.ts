@@ -4,8 +4,9 @@
  * runCheck. The single-file command and every batch worker share this, so a
  * file gives the same numbers alone or in a folder.
  */
-import { BANDWIDTH_RULES, CheckInput, CheckOptions, CheckResult, CutlineError, KERNEL_NAMES, MAX_DRAWS, MAX_GRID, runCheck, VARIANCE_NAMES } from '../engine';
+import { BANDWIDTH_RULES, CheckInput, CheckOptions, CheckResult, CutlineError, KERNEL_NAMES, limitProblem, runCheck, VARIANCE_NAMES } from '../engine';
 import { labelColumn, numericColumn } from '../input/columns';
+import { readMultiples } from '../input/multiples';
 import { choiceOption, numberOption, one, ParsedArgs, required } from './args';
 import { readTable } from './readTable';
 import { Table } from '../input/table';
@@ -22,15 +23,9 @@ export interface CheckSpec {
   options: CheckOptions;
 }
 
-/** `--sensitivity 0.5,0.75,1,1.5,2` or `off`. */
+/** `--sensitivity 0.5,0.75,1,1.5,2` or `off`: read as a settings block reads its sensitivity (src/input/multiples.ts). */
 function sensitivityOption(s: string | undefined): number[] | undefined {
-  if (s === undefined) return undefined;
-  if (s.trim().toLowerCase() === 'off') return [];
-  const parts = s.split(',').map((p) => p.trim());
-  const values = parts.map(Number);
-  const bad = parts.findIndex((p, i) => p === '' || !(values[i] > 0) || !Number.isFinite(values[i]));
-  if (bad >= 0) throw new CutlineError(`--sensitivity must be positive multiples separated by commas, or off; got ${JSON.stringify(parts[bad])}`);
-  return values;
+  return s === undefined ? undefined : readMultiples(s, '--sensitivity');
 }
 
 /** Equal values and equal missing cells on every row. */
@@ -88,13 +83,10 @@ export function parseCheckSpec(args: ParsedArgs): CheckSpec {
   const clusterName = one(args, 'cluster');
   const variance = choiceOption(args, 'variance', VARIANCE_NAMES) ?? (clusterName !== undefined ? 'cluster' : undefined);
   if (variance === 'cluster' && clusterName === undefined) throw new CutlineError('--variance cluster needs --cluster COL');
-  const draws = numberOption(args, 'draws', (v) =>
-    !Number.isInteger(v) || v < 1 ? 'must be a whole number of at least 1' : v > MAX_DRAWS ? `must be at most ${MAX_DRAWS} (more draws only slow the check down)` : null,
-  );
-  const seed = numberOption(args, 'seed', (v) => (Number.isInteger(v) && v >= 0 && v <= 4294967295 ? null : 'must be a whole number from 0 to 4294967295'));
-  const grid = numberOption(args, 'grid', (v) =>
-    !Number.isInteger(v) || v < 2 ? 'must be a whole number of at least 2' : v > MAX_GRID ? `must be at most ${MAX_GRID} (the intervals grow as its square)` : null,
-  );
+  // The engine's limits (VALIDITY_LIMITS), checked here to name the flag; the task pane checks the same.
+  const draws = numberOption(args, 'draws', (v) => limitProblem('draws', v));
+  const seed = numberOption(args, 'seed', (v) => limitProblem('seed', v));
+  const grid = numberOption(args, 'grid', (v) => limitProblem('grid', v));
   const trim = numberOption(args, 'trim', (v) => (v >= 0 ? null : 'must be at least 0'));
   const multiplier = choiceOption(args, 'multiplier', ['normal', 'rademacher'] as const);
   const trendGuard = choiceOption(args, 'trend-guard', ['on', 'off'] as const);
@@ -140,11 +132,12 @@ export interface CheckedFile {
 /**
  * The file's columns for the check, and its table when `keepSource` (the
  * report writers read it). In a function of its own so that without it the
- * table — the file's bytes and field offsets, about twice the file's size —
+ * table — the file's bytes, row starts and read numbers —
  * is let go when this returns, before the check runs.
  */
 async function readColumns(file: string, spec: CheckSpec, keepSource: boolean): Promise<{ input: CheckInput; table?: Table; bytes?: Buffer; isXlsx?: boolean }> {
-  const { table, bytes, isXlsx } = await readTable(file, spec.sheet);
+  const numeric = [spec.scoreName, spec.treatedName, ...spec.outcomeNames, ...spec.covariateNames];
+  const { table, bytes, isXlsx } = await readTable(file, spec.sheet, numeric);
   const input: CheckInput = {
     score: numericColumn(table, spec.scoreName, 'score'),
     treated: numericColumn(table, spec.treatedName, 'treated'),

@@ -1,20 +1,37 @@
 /**
- * The engine names arguments in its own words ("give a bandwidth", "the
- * donut", "the sensitivity multiple"); on the command line the option that
- * sets each is added in brackets, once, so the user sees what to type.
- * Example: "… choose a smaller donut, or give a bandwidth" becomes
- * "… choose a smaller donut (--donut), or give a bandwidth (--bandwidth NUM)".
+ * The command-line flag behind an engine error: the engine names the input at
+ * fault in its own words (CutlineError's `argument`: `donut`, `sensitivity`,
+ * `bandwidth`, …) and the command line says it as the option the user types.
+ * Decided by that structured field alone, never by the message's wording.
+ *
+ * @example flagHint(new CutlineError('the donut (radius 2) leaves too few units …', { argument: 'donut' })) // '--donut'
  */
-const HINTS: Array<[RegExp, string]> = [
-  [/\bgive a bandwidth( instead| wide enough[^;,.)]*)?/, ' (--bandwidth NUM)'],
-  [/\bchoose a smaller donut/, ' (--donut)'],
-  [/\bthe sensitivity multiple [^ ]+/, ' (--sensitivity)'],
-  [/\buse a trim near the default 0\.1/, ' (--trim)'],
-];
+import { CutlineError } from '../engine';
 
-export function withFlags(message: string): string {
-  if (message.includes('(--')) return message;
-  let out = message;
-  for (const [pattern, flag] of HINTS) out = out.replace(pattern, (m) => m + flag);
-  return out;
+/** The command-line spelling of each argument the engine may name in an error. */
+export const FLAGS: Readonly<Record<string, string>> = {
+  cutoff: '--cutoff',
+  score: '--score',
+  treated: '--treated',
+  outcome: '--outcome',
+  covariate: '--covariate',
+  cluster: '--cluster',
+  within: '--within',
+  bandwidth: '--bandwidth',
+  rule: '--bandwidth-rule',
+  kernel: '--kernel',
+  variance: '--variance',
+  donut: '--donut',
+  draws: '--draws',
+  seed: '--seed',
+  grid: '--grid',
+  trim: '--trim',
+  multiplier: '--multiplier',
+  sensitivity: '--sensitivity',
+  density: '--density-bin/--density-bandwidth',
+};
+
+/** The flag of the error's argument, or undefined (no argument, or one the command line has no flag for). */
+export function flagHint(e: CutlineError): string | undefined {
+  return e.argument !== undefined && Object.prototype.hasOwnProperty.call(FLAGS, e.argument) ? FLAGS[e.argument] : undefined;
 }

@@ -1,6 +1,6 @@
 /** Number formatting for the readable output (presentation only). */
 
-export { interval, num, pval } from '../report/numberText';
+export { interval, num, pIs, pval } from '../report/numberText';
 
 export function padRight(s: string, w: number): string {
   return s.length >= w ? s : s + ' '.repeat(w - s.length);

@@ -7,11 +7,13 @@
 import * as fs from 'fs';
 import * as path from 'path';
 import { CutlineError } from '../engine';
+import { columnIndex } from '../input/columns';
 import { looksLikeUtf16, parseCsv } from '../input/csv';
 import { Table } from '../input/table';
 import { parseXlsx } from '../input/xlsx';
 
-export async function readTable(file: string, sheet?: string): Promise<{ table: Table; bytes: Buffer; isXlsx: boolean }> {
+/** `numeric`: names of the columns to be read as numbers (a CSV text reads them as it is scanned). */
+export async function readTable(file: string, sheet?: string, numeric: string[] = []): Promise<{ table: Table; bytes: Buffer; isXlsx: boolean }> {
   let bytes: Buffer;
   try {
     const st = fs.statSync(file);
@@ -33,5 +35,6 @@ export async function readTable(file: string, sheet?: string): Promise<{ table: 
   if (sheet !== undefined) throw new CutlineError(`--sheet applies to XLSX workbooks; ${file} is read as CSV`);
   // UTF-16 text holds zero bytes too: parseCsv refuses it with a hint to save it as UTF-8.
   if (bytes.includes(0) && !looksLikeUtf16(bytes)) throw new CutlineError(`${file} is neither a CSV text nor an XLSX workbook (it holds binary data): save the data as CSV UTF-8 or .xlsx`);
-  return { table: parseCsv(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length), file), bytes, isXlsx: false };
+  const wanted = (header: string[]) => numeric.map((name) => columnIndex(header, name));
+  return { table: parseCsv(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length), file, undefined, wanted), bytes, isXlsx: false };
 }

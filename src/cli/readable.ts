@@ -3,7 +3,8 @@
  * block per question an evaluator asks, with the cautions of docs/methods.md.
  */
 import { CheckResult, EstimateSummary, OutcomeResult, ValidityReport, ValidityResult } from '../engine';
-import { interval, num, padLeft, padRight, pval, wrap } from './format';
+import { CAUTION } from '../report/cautions';
+import { interval, num, padLeft, padRight, pIs, pval, wrap } from './format';
 
 const COLS = [28, 12, 11, 26, 26, 9];
 
@@ -29,19 +30,11 @@ function header(): string {
   ].join('');
 }
 
-const GENERAL_CAUTIONS = [
-  'A test that does not reject is not proof that the design is valid: it only finds no contradiction in these data.',
-  'Cutline informs, and does not replace, the judgement of a qualified evaluator.',
-];
+/** The summary's cautions (src/report/cautions.ts) that hold for every check; the others are said where they apply. */
+const GENERAL_CAUTIONS = [CAUTION.notProof, CAUTION.judgement];
 
 function armName(arm: 0 | 1): string {
   return arm === 1 ? 'treated compliers' : 'untreated compliers';
-}
-
-/** "p = 0.123", or "p < 0.001". */
-function pIs(p: number): string {
-  const s = pval(p);
-  return s.startsWith('<') ? `p ${s.replace('<', '< ')}` : `p = ${s}`;
 }
 
 function armRestrictions(arm: 0 | 1): string {
@@ -135,14 +128,14 @@ function densityBlock(r: CheckResult): string[] {
     const l = d.local_polynomial;
     lines.push(
       `  local polynomial (Cattaneo, Jansson & Ma 2020)${d.method === 'local_polynomial' ? ' [headline]' : unreliable}: ` +
-        `densities ${num(l.density_below)} below, ${num(l.density_above)} above; log ratio ${num(l.log_ratio)} (se ${num(l.se)}), p = ${pval(l.pvalue)}; bandwidth ${num(l.bandwidth)}`,
+        `densities ${num(l.density_below)} below, ${num(l.density_above)} above; log ratio ${num(l.log_ratio)} (se ${num(l.se)}), ${pIs(l.pvalue)}; bandwidth ${num(l.bandwidth)}`,
     );
   }
   if (d.mccrary) {
     const m = d.mccrary;
     lines.push(
       `  McCrary (2008)${d.method === 'mccrary' ? ' [headline]' : unreliable}: densities ${num(m.density_below)} below, ${num(m.density_above)} above; ` +
-        `log ratio ${num(m.log_ratio)} (se ${num(m.se)}), p = ${pval(m.pvalue)}; bin ${num(m.bin)}, bandwidth ${num(m.bandwidth)}`,
+        `log ratio ${num(m.log_ratio)} (se ${num(m.se)}), ${pIs(m.pvalue)}; bin ${num(m.bin)}, bandwidth ${num(m.bandwidth)}`,
     );
   }
   if (d.method === 'none') lines.push(`  ${wrap(`No density test is shown as the headline: ${d.unreliable}.`, 96, '  ')}`);

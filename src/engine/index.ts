@@ -80,7 +80,8 @@ export { BANDWIDTH_RULES } from './bandwidth';
 export type { BandwidthRule } from './bandwidth';
 export { KERNEL_NAMES, VARIANCE_NAMES } from './fit';
 export type { Estimate, KernelName, VarianceName } from './fit';
-export { MAX_DRAWS, MAX_GRID } from './validity';
+export { limitProblem, MAX_DRAWS, MAX_GRID, VALIDITY_LIMITS } from './limits';
+export type { WholeLimit } from './limits';
 export type { MultiplierName, ValidityAtBandwidth, ValidityReport, ValidityReportOutcome, ValidityResult } from './validity';
 
 // Method functions for the benchmarks and Monte Carlo studies.

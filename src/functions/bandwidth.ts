@@ -12,11 +12,12 @@ import { selectBandwidth } from '../engine';
 import { guarded, Matrix, single } from './call';
 import { commonRows, table } from './detail';
 import { RangeInputError } from '../input/range';
+import { trimBlank } from '../input/cells';
 import { prepareCall } from './prepare';
 
 /** The purpose argument: "estimate" (or empty) or "test". */
 function purposeOf(v: unknown): 'estimate' | 'test' {
-  const s = v === null || v === undefined ? '' : String(v).trim().toLowerCase();
+  const s = v === null || v === undefined ? '' : trimBlank(String(v)).toLowerCase();
   if (s === '' || s === 'estimate') return 'estimate';
   if (s === 'test') return 'test';
   throw new RangeInputError(`purpose must be "estimate" or "test"; it is ${JSON.stringify(v)}`, 'purpose');

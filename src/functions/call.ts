@@ -8,6 +8,7 @@
 import { EstimateOptions, ValidityOptions } from '../engine';
 import { RangeColumn, rangeColumns, RangeInputError } from '../input/range';
 import { readSettings, Settings } from '../input/settings';
+import { cellNumber, trimBlank } from '../input/cells';
 import { cellPrint, CellPrint, samePrint } from '../input/cellPrint';
 import { BoundedCache } from './cache';
 import { excelError, toExcelError } from './excelError';
@@ -109,10 +110,14 @@ export function readRanges(specs: RangeSpec[], seenRanges: RangesSeen, invocatio
   );
 }
 
-/** A number argument: finite, or a #VALUE! error naming it. */
+/**
+ * A number argument, read exactly as a cell of a range is (cells.ts: "60 " and
+ * TRUE are 60 and 1; "0x10", "Infinity" and "1e999" are not numbers; blank and
+ * NA are missing), or a #VALUE! error naming it: a missing value is an error here.
+ */
 export function numberArgument(argument: string, v: unknown): number {
-  const x = typeof v === 'string' && v.trim() !== '' ? Number(v) : v;
-  if (typeof x !== 'number' || !Number.isFinite(x)) {
+  const x = typeof v === 'number' || typeof v === 'string' || typeof v === 'boolean' ? cellNumber(v) : undefined;
+  if (typeof x !== 'number') {
     throw new RangeInputError(`${argument} must be a number; it is ${v === null || v === undefined || v === '' ? 'empty' : JSON.stringify(v)}`, argument);
   }
   return x;
@@ -120,7 +125,7 @@ export function numberArgument(argument: string, v: unknown): number {
 
 /** The optional bandwidth: a positive number when given. */
 export function bandwidthArgument(v: unknown): number | undefined {
-  if (v === null || v === undefined || v === '') return undefined;
+  if (v === null || v === undefined || (typeof v === 'string' && trimBlank(v) === '')) return undefined;
   const h = numberArgument('bandwidth', v);
   if (!(h > 0)) throw new RangeInputError(`bandwidth must be a positive number; it is ${h} (leave it empty for the data-driven bandwidth)`, 'bandwidth');
   return h;
@@ -136,7 +141,7 @@ export function flagArgument(v: unknown): boolean {
   if (v === null || v === undefined || v === '') return false;
   if (typeof v === 'boolean') return v;
   if (typeof v === 'number') return v !== 0;
-  const s = String(v).trim().toUpperCase();
+  const s = trimBlank(String(v)).toUpperCase();
   if (s === 'TRUE') return true;
   if (s === 'FALSE') return false;
   throw new RangeInputError(`detail must be TRUE or FALSE; it is ${JSON.stringify(v)}`, 'detail');

@@ -5,6 +5,7 @@
  */
 import { complierCdfAt, complierDensityAt, ComplierCurveResult } from '../engine';
 import { rangeNumbers, RangeInputError } from '../input/range';
+import { trimBlank } from '../input/cells';
 import { Cell, cellOf, guarded, InvocationLike, Matrix } from './call';
 import { commonRows, table } from './detail';
 import { prepareCall, ranges } from './prepare';
@@ -44,7 +45,7 @@ export function complierCurveCall(
 export function armArgument(v: unknown): 0 | 1 {
   if (v === 1 || v === true) return 1;
   if (v === 0 || v === false) return 0;
-  const s = typeof v === 'string' ? v.trim().toLowerCase() : '';
+  const s = typeof v === 'string' ? trimBlank(v).toLowerCase() : '';
   if (s === 'treated' || s === '1' || s === 'true') return 1;
   if (s === 'untreated' || s === '0' || s === 'false') return 0;
   throw new RangeInputError(`arm must be 1 (treated compliers) or 0 (untreated compliers); it is ${JSON.stringify(v)}`, 'arm');

@@ -6,7 +6,7 @@
  * give (a side of the cutoff without units, a constant column); `#NUM!` for
  * a result that is not a finite number (Excel shows no message with it).
  */
-import { CutlineError } from '../engine';
+import { CutlineError, ErrorCode } from '../engine';
 import { RangeInputError } from '../input/range';
 
 export type ExcelErrorCode = '#VALUE!' | '#N/A' | '#NUM!';
@@ -25,7 +25,11 @@ export function excelError(code: ExcelErrorCode, message?: string): CustomFuncti
 }
 
 // Engine codes for a problem with an argument's value (the rest: the data cannot give the statistic).
-const ARGUMENT_CODES = new Set(['bad-value', 'length', 'option']);
+// Decided by the code alone, never by the message's wording: an engine error thrown without a code
+// has 'invalid' (CutlineError's default), a finding about the data at these settings, hence #N/A. The
+// options a user can get wrong in a worksheet are checked before the engine runs (range.ts,
+// settings.ts, call.ts), as RangeInputErrors naming the cell, hence #VALUE!.
+const ARGUMENT_CODES: ReadonlySet<ErrorCode> = new Set<ErrorCode>(['bad-value', 'length', 'option']);
 
 /** Any error thrown while a function ran, as the Excel error it returns. */
 export function toExcelError(fn: string, e: unknown): CustomFunctions.Error {
@@ -33,10 +37,8 @@ export function toExcelError(fn: string, e: unknown): CustomFunctions.Error {
   if (e instanceof CustomFunctions.Error) return e;
   if (e instanceof RangeInputError) return excelError('#VALUE!', `CUTLINE.${fn}: ${e.message}`);
   if (e instanceof CutlineError) {
-    const code = (e as CutlineError & { code?: string }).code;
-    const argument = (e as CutlineError & { argument?: string }).argument;
-    const valueError = code !== undefined ? ARGUMENT_CODES.has(code) : /must be|is not a|got /.test(e.message);
-    return excelError(valueError ? '#VALUE!' : '#N/A', `CUTLINE.${fn}: ${argument && !e.message.startsWith(argument) ? `${argument}: ` : ''}${e.message}`);
+    const { code, argument } = e;
+    return excelError(ARGUMENT_CODES.has(code) ? '#VALUE!' : '#N/A', `CUTLINE.${fn}: ${argument && !e.message.startsWith(argument) ? `${argument}: ` : ''}${e.message}`);
   }
   // Not a problem the user can fix: say so in one line, never a stack trace.
   const text = e instanceof Error ? e.message : String(e);

@@ -5,13 +5,13 @@
  *
  * @example cellValueOf('60.5') // 60.5; cellValueOf('NA') // 'NA'; cellValueOf('') // null
  */
-import { cellNumber } from './cells';
+import { cellNumber, trimBlank } from './cells';
 import { Cell } from './table';
 
 export function cellValueOf(c: Cell): string | number | boolean | null {
   if (c === null || c === undefined || c === '') return null;
   if (typeof c !== 'string') return c;
   const v = cellNumber(c);
-  const t = c.trim().toUpperCase();
+  const t = trimBlank(c).toUpperCase();
   return typeof v === 'number' && t !== 'TRUE' && t !== 'FALSE' ? v : c;
 }

@@ -21,6 +21,21 @@ export function trimBlank(s: string): string {
   return s.replace(EDGE_BLANKS, '');
 }
 
+/**
+ * A number typed in a field or a list (a command-line option, a task-pane
+ * field, a sensitivity multiple) rather than held in a cell: decimal text by
+ * the cell rules (blank-looking ends trimmed; no hexadecimal, no Infinity),
+ * where a word (TRUE, NA) is not a number. `undefined` when it is not one.
+ *
+ * @example typedNumber(' 60 ') // 60; typedNumber('0x10') // undefined; typedNumber('TRUE') // undefined
+ */
+export function typedNumber(text: string): number | undefined {
+  const t = trimBlank(text);
+  if (t === '' || /^[a-z]/i.test(t)) return undefined;
+  const v = cellNumber(t);
+  return typeof v === 'number' ? v : undefined;
+}
+
 /** A number, `null` for missing, or `undefined` for a value that is not a number. */
 export function cellNumber(cell: Cell): number | null | undefined {
   if (cell === null || cell === undefined) return null;

@@ -36,17 +36,30 @@ function requireSomeValue(table: Table, c: number, role: ColumnRole, missing: Ui
   );
 }
 
+/** The columns of `header` named `name`: exact matches, else matches ignoring case. */
+function matches(header: string[], name: string): number[] {
+  for (const same of [(h: string) => h === name, (h: string) => h.toLowerCase() === name.toLowerCase()]) {
+    const hits = header.flatMap((h, k) => (same(h) ? [k] : []));
+    if (hits.length > 0) return hits;
+  }
+  return [];
+}
+
+/** Index of the one column named `name` (findColumn's rule), or −1 when there is none or more than one. */
+export function columnIndex(header: string[], name: string): number {
+  const hits = matches(header, name);
+  return hits.length === 1 ? hits[0] : -1;
+}
+
 /** Index of a named column; the message lists what the table has. */
 export function findColumn(table: Table, name: string, role: string): number {
   if (trimBlank(name) === '') throw new CutlineError(`${role} needs a column name, got an empty one`);
   // An exact match wins; else a match ignoring case. Two matches: refuse rather than guess.
-  for (const same of [(h: string) => h === name, (h: string) => h.toLowerCase() === name.toLowerCase()]) {
-    const hits = table.header.flatMap((h, k) => (same(h) ? [k] : []));
-    if (hits.length > 1) {
-      throw new CutlineError(`${role}: the header has ${hits.length} columns named ${showCell(name)} (columns ${hits.map((k) => k + 1).join(', ')}); rename them`);
-    }
-    if (hits.length === 1) return hits[0];
+  const hits = matches(table.header, name);
+  if (hits.length > 1) {
+    throw new CutlineError(`${role}: the header has ${hits.length} columns named ${showCell(name)} (columns ${hits.map((k) => k + 1).join(', ')}); rename them`);
   }
+  if (hits.length === 1) return hits[0];
   // Twelve names at most, each cut as a cell value is: a header can be megabytes long.
   const shown = table.header.slice(0, 12).map((h) => showCell(h)).join(', ');
   const more = table.header.length > 12 ? `, … (${table.header.length} columns in all)` : '';

@@ -27,7 +27,7 @@
  */
 import { CutlineError } from '../engine';
 import { CellPrint, FALSE_HI, HI, slotCell, tagged, TRUE_HI } from './cellPrint';
-import { cellNumber, showCell } from './cells';
+import { cellNumber, showCell, trimBlank } from './cells';
 import { Cell } from './table';
 
 /** What a range argument holds. */
@@ -74,7 +74,7 @@ export function errorCode(cell: unknown): string | undefined {
   return c.type === 'Error' || cell instanceof Error ? '#VALUE!' : undefined;
 }
 
-const isBlank = (cell: unknown): boolean => cell === null || cell === undefined || (typeof cell === 'string' && cell.trim() === '');
+const isBlank = (cell: unknown): boolean => cell === null || cell === undefined || (typeof cell === 'string' && trimBlank(cell) === '');
 
 /** A one-column or one-row range read cell by cell, without copying it (ranges can be 10⁶ cells). */
 interface CellView {
@@ -112,7 +112,7 @@ function letters(col: number): string {
 
 /** The address of the cell `down` rows and `right` columns from the top-left of a range ("Data!B7"), or undefined. */
 export function offsetAddress(address: string | undefined, down: number, right: number): string | undefined {
-  const m = address ? /^(?:(.*)!)?\$?([A-Za-z]{1,3})\$?(\d+)(?::\$?([A-Za-z]{1,3})\$?(\d+))?$/.exec(address.trim()) : null;
+  const m = address ? /^(?:(.*)!)?\$?([A-Za-z]{1,3})\$?(\d+)(?::\$?([A-Za-z]{1,3})\$?(\d+))?$/.exec(trimBlank(address)) : null;
   if (!m) return undefined;
   const col = m[2].toUpperCase().split('').reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0);
   return `${m[1] ? `${m[1]}!` : ''}${letters(col + right)}${Number(m[3]) + down}`;
@@ -189,7 +189,7 @@ function readColumn(a: RangeArgument, cells: CellView, header: number, n: number
     }
     missingCount += readCell(a, cell, i, k, values, missing);
   }
-  const name = header ? String(cells.at(0)).trim() : undefined;
+  const name = header ? trimBlank(String(cells.at(0))) : undefined;
   return { argument: a.argument, name, values, missing, missingCount };
 }
 
@@ -218,7 +218,7 @@ function readPrinted(a: RangeArgument, p: CellPrint, cells: CellView, header: nu
     values[i] = 0;
     missingCount += readCell(a, cell, i, k, values, missing);
   }
-  const name = header ? String(cells.at(0)).trim() : undefined;
+  const name = header ? trimBlank(String(cells.at(0))) : undefined;
   return { argument: a.argument, name, values, missing, missingCount };
 }
 

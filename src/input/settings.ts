@@ -9,8 +9,9 @@
  *   readSettings([['kernel', 'uniform'], ['draws', 1999], ['', '']], 'settings')
  *   // { kernel: 'uniform', draws: 1999 }
  */
-import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine';
-import { cellNumber, showCell } from './cells';
+import { BANDWIDTH_RULES, BandwidthRule, KERNEL_NAMES, KernelName, limitProblem, MultiplierName, VARIANCE_NAMES, VarianceName } from '../engine';
+import { cellNumber, showCell, trimBlank } from './cells';
+import { readMultiples } from './multiples';
 import { errorCode, offsetAddress, RangeInputError } from './range';
 import { Cell } from './table';
 
@@ -65,7 +66,7 @@ const BY_KEY = new Map(SETTINGS.map((s) => [squeeze(s.name), s]));
 
 function text(cell: unknown): string | undefined {
   if (cell === null || cell === undefined) return undefined;
-  const s = String(cell).trim();
+  const s = trimBlank(String(cell));
   return s === '' ? undefined : s;
 }
 
@@ -99,21 +100,21 @@ export function readSettings(cells: unknown[][] | null | undefined, argument = '
     if (code !== undefined) throw new RangeInputError(`${argument}, ${where(r, 1)}: ${spec.name} holds the error ${code}`, argument);
     const raw = text(cell);
     if (raw === undefined) return; // a blank value leaves the default
-    const badValue = (wanted: string): never => {
-      throw new RangeInputError(`${argument}, ${where(r, 1)}: ${spec.name} must be ${wanted}; it holds ${showCell(cell as Cell)}`, argument);
+    const bad = (problem: string): never => {
+      throw new RangeInputError(`${argument}, ${where(r, 1)}: ${spec.name} ${problem}; it holds ${showCell(cell as Cell)}`, argument);
     };
+    const badValue = (wanted: string): never => bad(`must be ${wanted}`);
     const k = spec.kind;
     if ('choices' in k) {
       const v = raw.toLowerCase();
       if (!k.choices.includes(v)) badValue(`one of ${k.choices.join(', ')}`);
       (out as Record<string, unknown>)[spec.field] = v;
     } else if ('list' in k) {
-      if (raw.toLowerCase() === 'off' || raw.toLowerCase() === 'none') out.sensitivity = [];
-      else {
-        const parts = raw.split(/[,;\s]+/).filter((p) => p !== '');
-        const values = parts.map(Number);
-        if (values.length === 0 || values.some((v) => !(v > 0) || !Number.isFinite(v))) badValue('positive multiples separated by commas, or off');
-        out.sensitivity = values;
+      // The reader of --sensitivity too (multiples.ts): the same texts accepted, the same words for a bad entry.
+      try {
+        out.sensitivity = readMultiples(raw, `${argument}, ${where(r, 1)}: ${spec.name}`);
+      } catch (e) {
+        throw new RangeInputError((e as Error).message, argument);
       }
     } else {
       const v = cellNumber(cell as Cell);
@@ -127,6 +128,10 @@ export function readSettings(cells: unknown[][] | null | undefined, argument = '
           want === 'positive' ? 'a positive number' : want === 'whole' ? 'a whole number' : want === 'nonnegative' ? 'a number of at least 0' : 'a number between 0 and 1',
         );
       }
+      // The engine's limits (as the command line and the task pane check them): refused here, naming the cell.
+      const field = spec.field;
+      const problem = field === 'draws' || field === 'seed' || field === 'grid' ? limitProblem(field, v as number) : null;
+      if (problem) bad(problem);
       (out as Record<string, unknown>)[spec.field] = v;
     }
   });

@@ -4,7 +4,7 @@
  * comes from a CSV text, an exceljs worksheet or a worksheet range, so that
  * validation (columns.ts) and its messages are the same in every face.
  */
-import { MISSING, SLOW } from './fastNumber';
+import { trimBlank } from './cells';
 
 export type Cell = string | number | boolean | null | undefined;
 
@@ -16,11 +16,6 @@ export interface Table {
   /** The cell at data row r (0-based) and column c. */
   get(r: number, c: number): Cell;
   /**
-   * Optional fast read of cell (r, c) as a number: a number, MISSING, or SLOW
-   * when the general rules of cells.ts must decide (plain CSV texts have it).
-   */
-  fastNumber?(r: number, c: number): number | typeof SLOW | typeof MISSING;
-  /**
    * Optional fast read of a whole column: values, a missing mask, and the rows
    * (ascending) that the general rules must decide.
    */
@@ -29,7 +24,7 @@ export interface Table {
 
 /** A table over arrays of arrays; the first row is the header unless `header` is given. */
 export function tableFromRows(rows: Cell[][], options: { header?: string[]; firstRow?: number } = {}): Table {
-  const header = options.header ?? (rows[0] ?? []).map((h) => (h === null || h === undefined ? '' : String(h).trim()));
+  const header = options.header ?? (rows[0] ?? []).map((h) => (h === null || h === undefined ? '' : trimBlank(String(h))));
   const body = options.header ? rows : rows.slice(1);
   return {
     header,

@@ -12,6 +12,7 @@
  *   const data = await port.readData({ kind: 'used' });
  */
 import { columnLetters } from './formulas';
+import { trimBlank } from '../input/cells';
 import { CellFormat } from './summaryTypes';
 import { CancelledError, DataBlock, DataSource, PlanCell, PortCell, PortError, Progress, SheetPlan, WorkbookPort } from './workbookPort';
 
@@ -33,7 +34,7 @@ const CHART_TYPE: Record<string, string> = { scatter: 'XYScatter', line: 'XYScat
 export function headerOf(values: unknown[][], address: string): string[] {
   const first = values[0] ?? [];
   return first.map((h, k) => {
-    const s = h === null || h === undefined ? '' : String(h).trim();
+    const s = h === null || h === undefined ? '' : trimBlank(String(h));
     if (s === '' || typeof h !== 'string') {
       throw new PortError(
         `The first row of ${address} must hold the column headers; its cell ${k + 1} ${s === '' ? 'is empty' : `holds ${JSON.stringify(h)}, not a header`}. Select the data with their header row.`,

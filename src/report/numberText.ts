@@ -19,6 +19,16 @@ export function pval(p: number): string {
   return p.toFixed(3);
 }
 
+/**
+ * A p-value in words after "p": "p = 0.123", or "p < 0.001" (never "p = <0.001").
+ *
+ * @example pIs(0.0312) // 'p = 0.031'; pIs(0.00042) // 'p < 0.001'
+ */
+export function pIs(p: number): string {
+  const s = pval(p);
+  return s.startsWith('<') ? `p ${s.replace('<', '< ')}` : `p = ${s}`;
+}
+
 export function interval(ci: [number, number]): string {
   return `[${num(ci[0])}, ${num(ci[1])}]`;
 }

@@ -9,7 +9,7 @@
  * @example buildCharts(runCheck(input, { cutoff: 60, bins: true }), 'retrofit').map((c) => c.id)
  */
 import type { BinnedSeries, CheckResult } from '../engine';
-import { num, pval } from './numberText';
+import { num, pIs } from './numberText';
 import { ChartSpec } from './summaryTypes';
 
 function fitPoints(b: BinnedSeries, side: 'below' | 'above', cutoff: number): Array<{ x: number; y: number }> {
@@ -76,7 +76,7 @@ export function buildCharts(r: CheckResult, treatedName: string): ChartSpec[] {
       title: 'Scores around the cutoff',
       xLabel: 'score',
       yLabel: 'units per score unit',
-      alt: `Histogram of the score in ${bars.length} non-empty bins (${tk.bins_below} laid below the cutoff ${r.cutoff}, ${tk.bins_above} above); a pile-up just on one side would suggest sorting. Density test p = ${r.density?.pvalue !== undefined ? pval(r.density.pvalue) : 'not computed'}.`,
+      alt: `Histogram of the score in ${bars.length} non-empty bins (${tk.bins_below} laid below the cutoff ${r.cutoff}, ${tk.bins_above} above); a pile-up just on one side would suggest sorting. Density test ${r.density?.pvalue !== undefined ? pIs(r.density.pvalue) : 'p not computed'}.`,
       bars,
       verticals: [{ x: r.cutoff, label: `cutoff ${r.cutoff}` }],
       table: `bins:${tk.name}`,

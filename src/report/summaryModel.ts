@@ -19,7 +19,7 @@
 import { CheckOptions, CheckResult, DEFAULT_SENSITIVITY, EstimateSummary, OutcomeResult, resolveValidityOptions } from '../engine';
 import { CAUTIONS } from './cautions';
 import * as F from './formulas';
-import { num, pval } from './numberText';
+import { num, pIs } from './numberText';
 import { buildCharts } from './summaryCharts';
 import { CellFormat, Headline, SettingRow, SummaryCell, SummaryModel, SummaryTable, TextBlock, Verdict } from './summaryTypes';
 
@@ -361,7 +361,7 @@ function verdictSentences(r: CheckResult): Verdict[] {
   };
   const side = r.eligible === 'above' ? `at or above ${r.cutoff}` : `below ${r.cutoff}`;
   say(
-    `Units scoring ${side} are eligible. Take-up jumps by ${num(r.takeup.estimate)} at the cutoff (robust 95% interval ${num(r.takeup.ci_robust[0])} to ${num(r.takeup.ci_robust[1])}, p ${pvalWords(r.takeup.pvalue)}).`,
+    `Units scoring ${side} are eligible. Take-up jumps by ${num(r.takeup.estimate)} at the cutoff (robust 95% interval ${num(r.takeup.ci_robust[0])} to ${num(r.takeup.ci_robust[1])}, ${pIs(r.takeup.pvalue)}).`,
   );
   for (const o of r.outcomes) {
     const e = o.effect;
@@ -373,8 +373,8 @@ function verdictSentences(r: CheckResult): Verdict[] {
       say(
         effect +
           (v.rejects
-            ? `The outcome–treatment test rejects (p ${pvalWords(v.pvalue)}): the data contradict the design for this outcome.`
-            : `The outcome–treatment test does not reject (p ${pvalWords(v.pvalue)}): the data do not contradict the design for this outcome, which is not proof that it holds.`),
+            ? `The outcome–treatment test rejects (${pIs(v.pvalue)}): the data contradict the design for this outcome.`
+            : `The outcome–treatment test does not reject (${pIs(v.pvalue)}): the data do not contradict the design for this outcome, which is not proof that it holds.`),
         v.rejects,
       );
   }
@@ -383,8 +383,8 @@ function verdictSentences(r: CheckResult): Verdict[] {
   if (dp !== undefined) {
     say(
       dp <= 0.05
-        ? `The density of the score jumps at the cutoff (p ${pvalWords(dp)}): a sign that units may have sorted themselves across it.`
-        : `The density of the score shows no significant jump at the cutoff (p ${pvalWords(dp)}).`,
+        ? `The density of the score jumps at the cutoff (${pIs(dp)}): a sign that units may have sorted themselves across it.`
+        : `The density of the score shows no significant jump at the cutoff (${pIs(dp)}).`,
       dp <= 0.05,
     );
   }
@@ -392,15 +392,13 @@ function verdictSentences(r: CheckResult): Verdict[] {
     if (b.pvalue_holm === undefined) continue;
     say(
       b.pvalue_holm <= 0.05
-        ? `${b.name} jumps at the cutoff (Holm-adjusted p ${pvalWords(b.pvalue_holm)}): units on the two sides differ before treatment.`
-        : `${b.name} shows no significant jump at the cutoff (Holm-adjusted p ${pvalWords(b.pvalue_holm)}).`,
+        ? `${b.name} jumps at the cutoff (Holm-adjusted ${pIs(b.pvalue_holm)}): units on the two sides differ before treatment.`
+        : `${b.name} shows no significant jump at the cutoff (Holm-adjusted ${pIs(b.pvalue_holm)}).`,
       b.pvalue_holm <= 0.05,
     );
   }
   return out;
 }
-
-const pvalWords = (p: number): string => (p < 0.001 ? '< 0.001' : `= ${pval(p)}`);
 
 function headline(r: CheckResult): Headline {
   const holm = (r.balance ?? []).map((b) => b.pvalue_holm).filter((p): p is number => p !== undefined);

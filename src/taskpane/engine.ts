@@ -7,7 +7,7 @@
  */
 import { takeupJump } from '../engine';
 
-export { runCheck, CutlineError } from '../engine';
+export { runCheck, CutlineError, limitProblem } from '../engine';
 export type { CheckInput, CheckOptions, CheckResult } from '../engine';
 
 /** The side of the cutoff where take-up is higher (the eligible side), from the rows with both values. */

@@ -13,6 +13,8 @@ import { DataBlock } from '../report/workbookPort';
 import { columnLetters } from '../report/formulas';
 import { labelColumn, numericColumn } from '../input/columns';
 import { Table, tableFromRows } from '../input/table';
+import { trimBlank, typedNumber } from '../input/cells';
+import { limitProblem } from './engine';
 import type { CheckInput, CheckOptions } from './engine';
 
 export type Field = 'data' | 'score' | 'treated' | 'outcomes' | 'covariates' | 'cluster' | 'cutoff' | 'eligible' | 'bandwidth' | 'draws' | 'seed';
@@ -77,7 +79,7 @@ export interface ReadyCheck {
 export const nameList = (s: string): string[] =>
   s
     .split(',')
-    .map((x) => x.trim())
+    .map(trimBlank)
     .filter((x) => x !== '');
 
 /** A message of the input layer without the command line's option in front ("--score: …"). */
@@ -89,11 +91,12 @@ export function blockAddress(b: DataBlock): string {
   return `${b.sheet}!${columnLetters(b.firstCol)}${b.firstRow - 1}:${columnLetters(b.firstCol + b.header.length - 1)}${last}`;
 }
 
-/** A whole number in [lo, hi], or a message. */
-function whole(v: string, what: string, lo: number, hi: number): { n?: number; error?: string } {
-  const t = v.trim();
-  const n = Number(t);
-  if (t === '' || !Number.isInteger(n) || n < lo || n > hi) return { error: `${what} must be a whole number from ${lo} to ${hi}; it is ${t === '' ? 'empty' : JSON.stringify(v)}` };
+/** A whole number within the engine's limits for the option (the command line checks the same), or a message. */
+function whole(v: string, what: 'draws' | 'seed'): { n?: number; error?: string } {
+  const t = trimBlank(v);
+  const n = typedNumber(t);
+  const problem = limitProblem(what, n ?? NaN);
+  if (problem) return { error: `${what} ${problem}; it is ${t === '' ? 'empty' : JSON.stringify(v)}` };
   return { n };
 }
 
@@ -108,12 +111,12 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
   const table: Table = tableFromRows(block.rows, { header: block.header, firstRow: block.firstRow });
 
   const one = (field: Field, name: string, role: 'score' | 'treated'): ReturnType<typeof numericColumn> | undefined => {
-    if (name.trim() === '') {
+    if (trimBlank(name) === '') {
       errors[field] = `Type the header of the ${role === 'score' ? 'score' : 'treated'} column.`;
       return undefined;
     }
     try {
-      return numericColumn(table, name.trim(), role);
+      return numericColumn(table, trimBlank(name), role);
     } catch (e) {
       errors[field] = plain(e);
       return undefined;
@@ -138,17 +141,17 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
   if (outcomeNames.length === 0) errors.outcomes = 'Type the header of at least one outcome column.';
   const outcomes = many('outcomes', outcomeNames, 'outcome');
   const covariates = many('covariates', nameList(form.covariates), 'covariate');
-  if (form.cluster.trim() !== '') {
+  if (trimBlank(form.cluster) !== '') {
     try {
       // Checked for its header only (see CLUSTER_NOTE).
-      labelColumn(table, form.cluster.trim(), 'cluster');
+      labelColumn(table, trimBlank(form.cluster), 'cluster');
     } catch (e) {
       errors.cluster = plain(e);
     }
   }
 
-  const c = form.cutoff.trim();
-  const cutoff = Number(c);
+  const c = trimBlank(form.cutoff);
+  const cutoff = typedNumber(c) ?? NaN;
   if (c === '' || !Number.isFinite(cutoff)) {
     errors.cutoff = `cutoff must be a number (for example 60); it is ${c === '' ? 'empty' : JSON.stringify(form.cutoff)}`;
   } else if (score) {
@@ -166,14 +169,14 @@ export function checkForm(form: PaneForm, block: DataBlock | Error | undefined):
 
   let bandwidth: number | undefined;
   if (form.bandwidthMode === 'typed') {
-    const b = Number(form.bandwidth.trim());
-    if (form.bandwidth.trim() === '' || !(b > 0) || !Number.isFinite(b)) {
-      errors.bandwidth = `bandwidth must be a positive number in score units; it is ${form.bandwidth.trim() === '' ? 'empty' : JSON.stringify(form.bandwidth)}`;
+    const b = typedNumber(form.bandwidth) ?? NaN;
+    if (trimBlank(form.bandwidth) === '' || !(b > 0) || !Number.isFinite(b)) {
+      errors.bandwidth = `bandwidth must be a positive number in score units; it is ${trimBlank(form.bandwidth) === '' ? 'empty' : JSON.stringify(form.bandwidth)}`;
     } else bandwidth = b;
   }
-  const draws = whole(form.draws, 'draws', 99, 99999);
+  const draws = whole(form.draws, 'draws');
   if (draws.error) errors.draws = draws.error;
-  const seed = whole(form.seed, 'seed', 0, 2 ** 31 - 1);
+  const seed = whole(form.seed, 'seed');
   if (seed.error) errors.seed = seed.error;
 
   if (Object.keys(errors).length > 0 || !score || !treated) return { errors };

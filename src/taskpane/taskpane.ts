@@ -10,6 +10,7 @@
  * `window.cutlineWorkbook` before it loads.
  */
 import { ExcelWorkbook } from '../report/excelWorkbook';
+import { trimBlank } from '../input/cells';
 import { DataBlock, DataSource, isCancel, WorkbookPort } from '../report/workbookPort';
 import { detectEligible } from './engine';
 import { checkForm, CLUSTER_NOTE, DEFAULT_FORM, Field, FieldErrors, nameList, PaneForm, ReadyCheck } from './paneInputs';
@@ -108,7 +109,7 @@ function refresh(): FieldErrors {
   const wrong = (Object.keys(errors) as Field[]).map((x) => FIELD_LABEL[x]);
   $('run-blocked').textContent = wrong.length ? `Run needs: ${wrong.join(', ')} (see the message beside each field).` : '';
   $<HTMLButtonElement>('run').disabled = !ready || running || !port;
-  $('note-cluster').textContent = f.cluster.trim() !== '' && !errors.cluster ? CLUSTER_NOTE : '';
+  $('note-cluster').textContent = trimBlank(f.cluster) !== '' && !errors.cluster ? CLUSTER_NOTE : '';
   summarizeChoices(f);
   detected(f, ready);
   return errors;

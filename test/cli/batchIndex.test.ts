@@ -37,5 +37,5 @@ test('the CSV index reads back with Papa Parse, error rows included', () => {
   expect(parsed.data[1].error).toBe('column "score" (score), row 6: not a number, found "abc"');
   const html = indexHtml(rows, ['bill']);
   expect(html).toContain('error: column &quot;score&quot; (score), row 6');
-  expect(html).toContain('<span class="reject">contradicted (p 0.040)</span>');
+  expect(html).toContain('<span class="reject">contradicted (p = 0.040)</span>');
 });

@@ -150,7 +150,7 @@ describe('3. errors name the column or option and a remedy', () => {
     const text = csv('score,treated,y', (o) => `${o.r < 0 ? (o.i % 2 ? -1 : -0.5) : o.i % 2 ? 1 : 0.5},${o.d},${f5(o.y)}`);
     const r = check(write('coarse.csv', text));
     expect(r.err).not.toMatch(/pilot/);
-    refused(r, /too few units near the cutoff to choose a bandwidth: within [\d.]+ of it the score has 0 below and 0 above \(0 and 0 distinct scores\).*give a bandwidth wide enough/);
+    refused(r, /--bandwidth: too few units near the cutoff to choose a bandwidth: within [\d.]+ of it the score has 0 below and 0 above \(0 and 0 distinct scores\).*give a bandwidth wide enough/);
   });
   test('a donut that removes everything near the cutoff names the donut', () => {
     // Units near the cutoff only, then a gap: a donut of 0.9 leaves only the far tails.
@@ -158,7 +158,7 @@ describe('3. errors name the column or option and a remedy', () => {
     const text = csv('score,treated,y', plain, '\n', data);
     const r = check(write('donut.csv', text), '--donut', '0.9');
     expect(r.err).not.toMatch(/pilot/);
-    refused(r, /the donut \(radius 0\.9\) leaves too few units or distinct scores near the cutoff for the bandwidth rule \(it works without the donut\); choose a smaller donut \(--donut\), or give a bandwidth \(--bandwidth NUM\)/);
+    refused(r, /--donut: the donut \(radius 0\.9\) leaves too few units or distinct scores near the cutoff for the bandwidth rule \(it works without the donut\); choose a smaller donut, or give a bandwidth/);
   });
 });
 
@@ -196,7 +196,7 @@ describe('5. designs that make no sense', () => {
   });
   test('a sensitivity multiple spreading the window over many times the range is refused', () => {
     refused(run(['check', good, '--score', 'score', '--treated', 'treated', '--outcome', 'y', '--cutoff', '0', '--draws', '99', '--sensitivity', '1,5000']),
-      /the sensitivity multiple 5000 \(--sensitivity\) makes the validity test's bandwidth [\d.e+]+, more than 10 times the range of the scores .*choose multiples up to/);
+      /--sensitivity: the sensitivity multiple 5000 makes the validity test's bandwidth [\d.e+]+, more than 10 times the range of the scores .*choose multiples up to/);
   });
 });
 

@@ -102,3 +102,31 @@ test('an engine error about a row of an argument names the cell (title rows coun
   const other = Object.assign(new CutlineError('no unit below the cutoff'), { code: 'empty-side', argument: 'cutoff' });
   expect(() => c.result(() => { throw other; })).toThrow(other);
 });
+
+// The one blank rule of cells.ts (trimBlank): a zero-width space or NBSP around a typed TRUE is blank.
+test('flagArgument: TRUE/FALSE framed by zero-width spaces or NBSP', () => {
+  expect(flagArgument('\u200bTRUE\u00a0')).toBe(true);
+  expect(flagArgument('false\u200b')).toBe(false);
+  expect(() => flagArgument('\u200byes')).toThrow(/detail must be TRUE or FALSE/);
+});
+
+// A text argument is read exactly as a cell of a range is (src/input/cells.ts, docs/methods.md §1).
+test('numberArgument reads a text as a cell would be read: no hexadecimal, Infinity or blank-as-0', () => {
+  const cellRead = (v: string | number | boolean): number | undefined => {
+    const [c] = rangeColumns([{ argument: 'score', cells: [[v], [1]] }]);
+    return c.missing[0] ? undefined : c.values[0];
+  };
+  for (const v of ['60', ' 60 ', '\u200b60\u00a0', '+.5', '1e3', '1e3 ', '-2.5E-1', 'TRUE', false, 7]) {
+    expect(numberArgument('cutoff', v)).toBe(cellRead(v));
+  }
+  expect(numberArgument('cutoff', '1e3 ')).toBe(1000);
+  for (const v of ['0x10', '0b1', '0o7', 'Infinity', '-Infinity', '1e999', 'sixty', '3,5']) {
+    expect(() => numberArgument('cutoff', v)).toThrow(new RangeInputError(`cutoff must be a number; it is ${JSON.stringify(v)}`, 'cutoff'));
+    expect(() => rangeColumns([{ argument: 'score', cells: [[1], [v]] }])).toThrow(/is not a number/);
+  }
+  // Blank and NA are missing in a range; a missing cutoff is an error (never 0).
+  for (const v of ['', ' ', '\u00a0', '\u200b', 'NA']) expect(() => numberArgument('cutoff', v)).toThrow(/^cutoff must be a number; it is /);
+  expect(() => numberArgument('cutoff', '')).toThrow('cutoff must be a number; it is empty');
+  expect(bandwidthArgument('\u200b')).toBeUndefined();
+  expect(() => bandwidthArgument('0x10')).toThrow('bandwidth must be a number; it is "0x10"');
+});

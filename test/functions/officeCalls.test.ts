@@ -55,6 +55,14 @@ test('which error for which problem', () => {
   const bug = e(new TypeError('x is undefined'));
   expect(bug.code).toBe('#N/A');
   expect(bug.message).toBe('CUTLINE.EFFECT could not compute this (x is undefined); please report it with the data that cause it');
+  // The code decides, not the wording: "must be" in a finding about the data is still #N/A, and an
+  // option error in words without "must be" is still #VALUE!.
+  expect(e(new CutlineError('the window must be wider: 2 units above the cutoff', { code: 'too-few', argument: 'bandwidth' })).code).toBe('#N/A');
+  expect(e(new CutlineError('the score is constant; got one value'))).toEqual(new MockExcelError('#N/A', 'CUTLINE.EFFECT: the score is constant; got one value'));
+  expect(e(new CutlineError('unknown kernel "gaussian"', { code: 'option', argument: 'kernel' }))).toEqual(
+    new MockExcelError('#VALUE!', 'CUTLINE.EFFECT: kernel: unknown kernel "gaussian"'),
+  );
+  expect(e(new CutlineError('score is not a number at row 3', { code: 'bad-value', argument: 'score', index: 2 })).code).toBe('#VALUE!');
   const own = excelError('#N/A', 'CUTLINE.VALIDITY: the test does not apply: …');
   expect(toExcelError('VALIDITY', own)).toBe(own);
   expect(() => single('EFFECT', Infinity)).toThrow(MockExcelError);

@@ -1,5 +1,5 @@
 // The cell rules of METHODS.md §1 (the contract itself is the source of these expectations).
-import { cellLabel, cellNumber, decimalCommaHint } from '../../src/input/cells';
+import { cellLabel, cellNumber, decimalCommaHint, typedNumber } from '../../src/input/cells';
 
 describe('cellNumber', () => {
   test('numbers, booleans and numeric text', () => {
@@ -46,4 +46,12 @@ describe('cellLabel', () => {
     expect(cellLabel('NA')).toBeNull();
     expect(cellLabel('')).toBeNull();
   });
+});
+
+// typedNumber: a number typed in a field or list (command-line options, task-pane fields, multiples).
+test('typedNumber: decimal text by the cell rules; hexadecimal, Infinity, words and blanks are not numbers', () => {
+  expect(typedNumber(' 60 ')).toBe(60);
+  expect(typedNumber('\u200b-1.5e2\u00a0')).toBe(-150);
+  expect(typedNumber('.5')).toBe(0.5);
+  for (const t of ['0x10', '0b1', '0o7', 'Infinity', '-Infinity', '1e999', 'TRUE', 'NA', '', '\u200b', '1,5', 'sixty']) expect(typedNumber(t)).toBeUndefined();
 });

@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import Papa from 'papaparse';
 import { CsvReader, parseCsv } from '../../src/input/csv';
 import { CutlineError } from '../../src/engine/errors';
+import { numericColumn } from '../../src/input/columns';
 
 function cells(text: string, reader?: CsvReader): string[][] {
   const t = parseCsv(text, 'the CSV file', reader);
@@ -125,4 +126,50 @@ test('a comma file with extra fields gets the decimal-comma hint', () => {
     expect(() => parseCsv('a,b\n1,5,2\n', 'f', reader)).toThrow('f, row 2: 3 fields where the header has 2; if the file writes numbers with a decimal comma (3,5)');
   }
   expect(() => parseCsv('a;b\n1;5;2\n')).toThrow(/where the header has 2$/);
+});
+
+describe('numbers read during the scan (plainCsv.ts)', () => {
+  // Reference: the general cell rules (cells.ts, built on ECMAScript Number()) through the quoted reader,
+  // which reads every cell one at a time; the scan must give the same double, mask and first error.
+  const numberText = fc.oneof(
+    fc.double({ noNaN: true, noDefaultInfinity: true }).map((x) => String(x)),
+    fc.double({ min: -1e6, max: 1e6, noNaN: true }).map((x) => x.toFixed(6)),
+    fc.stringMatching(/^[+-]?[0-9]{0,18}(\.[0-9]{0,18})?$/),
+    fc.stringMatching(/^[+-]?0{0,6}\.?0{0,6}[0-9]{1,4}([eE][+-]?[0-9]{1,3})?$/),
+    fc.constantFrom('', ' ', ' 7 ', '\t-3.5', 'NA', '.', '-', '+', '-0', '0.', '.5', '1e400', '\u00a012', 'x'),
+  );
+  const read = (text: string, reader: CsvReader, hint: boolean): string => {
+    try {
+      const t = parseCsv(text, 'the CSV file', reader, hint ? () => [0, 2] : undefined);
+      const a = numericColumn(t, 'a', 'outcome');
+      const b = numericColumn(t, 'b', 'outcome');
+      const c = numericColumn(t, 'c', 'outcome');
+      // Object.is keeps −0 apart from 0.
+      const show = (col: { values: Float64Array; missing: Uint8Array }) => Array.from(col.values, (v, r) => (col.missing[r] ? 'missing' : Object.is(v, -0) ? '-0' : String(v)));
+      return JSON.stringify([show(a), show(b), show(c)]);
+    } catch (e) {
+      if (!(e instanceof CutlineError)) throw e;
+      return `error: ${e.message}`;
+    }
+  };
+  test('equal the cell rules on random numbers, blanks and words (property)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.array(numberText, { minLength: 3, maxLength: 3 }), { minLength: 1, maxLength: 15 }), fc.constantFrom('\n', '\r\n', '\r'), (rows, eol) => {
+        const text = ['a,b,c', ...rows.map((r) => r.join(','))].join(eol) + eol;
+        const reference = read(text, 'quoted', false);
+        expect(read(text, 'plain', true)).toBe(reference);
+        expect(read(text, 'plain', false)).toBe(reference);
+      }),
+      { numRuns: 1000 },
+    );
+  });
+
+  test('a blank line and a wrong-width blank line inside numbers', () => {
+    const text = 'a,b,c\n1,2,3\n\n4,5,6\n , ,\n';
+    const t = parseCsv(text, 'the CSV file', 'plain', () => [0, 1, 2]);
+    expect(t.rowCount).toBe(3);
+    const a = numericColumn(t, 'a', 'outcome');
+    expect(Array.from(a.values)).toEqual([1, 0, 4]);
+    expect(Array.from(a.missing)).toEqual([0, 1, 0]);
+  });
 });

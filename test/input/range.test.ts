@@ -97,3 +97,18 @@ test('rangeNumbers: the `at` values, blanks and a title skipped', () => {
   expect(rangeNumbers({ argument: 'at', cells: col('bill', 100, '', 200, null) })).toEqual([100, 200]);
   expect(message(() => rangeNumbers({ argument: 'at', cells: col(1, 'abc') }))).toBe('at: row 2 of the range is not a number; it holds "abc"');
 });
+
+// The one blank rule of cells.ts (trimBlank): NBSP (U+00A0), the zero-width
+// space (U+200B) and NEL (U+0085) are blank like a space, here as in a file.
+test('cells of NBSP, zero-width spaces or line breaks are blank: missing, and not data at the end', () => {
+  const [s, t] = rangeColumns([
+    { argument: 'score', cells: col('\u200benergy burden\u00a0', 1, '\u00a0', 3, '\u200b', '\u0085', '\r\n') },
+    { argument: 'treated', cells: col(0, 1, 1), binary: true },
+  ]);
+  expect(s.name).toBe('energy burden');
+  expect(arr(s.values)).toEqual([1, 0, 3]);
+  expect(arr(s.missing)).toEqual([0, 1, 0]);
+  expect(arr(t.values)).toEqual([0, 1, 1]);
+  expect(rangeNumbers({ argument: 'at', cells: col('\u200b', 2, '\u00a0') })).toEqual([2]);
+  expect(offsetAddress('\u200bData!B2:B9\u00a0', 1, 0)).toBe('Data!B3');
+});

@@ -48,3 +48,25 @@ test('every setting has a distinct name and a meaning', () => {
   expect(new Set(names).size).toBe(names.length);
   for (const s of SETTINGS) expect(s.meaning.length).toBeGreaterThan(10);
 });
+
+// The one blank rule of cells.ts (trimBlank): NBSP and the zero-width space are blank like a space.
+test('names and values lose NBSP and zero-width spaces at their ends; a cell of them alone is blank', () => {
+  expect(
+    readSettings([
+      ['\u200bkernel\u00a0', 'uniform\u200b'],
+      ['\u200b', '\u200b'],
+      ['seed', '\u00a0\u200b'],
+      ['draws', '\u200b499\u00a0'],
+    ]),
+  ).toEqual({ kernel: 'uniform', draws: 499 });
+});
+
+// The engine's limits (VALIDITY_LIMITS: draws 1–100000, seed 0–4294967295, grid 2–1000), as the
+// command line and the task pane check them: refused here, naming the cell, not later by the engine.
+test('draws, seed and grid outside the engine limits are refused with the cell', () => {
+  expect(message(() => readSettings([['draws', 0]]))).toBe('settings, row 1: draws must be a whole number of at least 1; it holds "0"');
+  expect(message(() => readSettings([['draws', 100001]]))).toBe('settings, row 1: draws must be at most 100000 (more draws only slow the check down); it holds "100001"');
+  expect(message(() => readSettings([['seed', 4294967296]]))).toBe('settings, row 1: seed must be a whole number from 0 to 4294967295; it holds "4294967296"');
+  expect(message(() => readSettings([['grid', 1]]))).toBe('settings, row 1: grid must be a whole number of at least 2; it holds "1"');
+  expect(readSettings([['draws', 100000], ['seed', 4294967295], ['grid', 1000]])).toEqual({ draws: 100000, seed: 4294967295, grid: 1000 });
+});

@@ -40,7 +40,7 @@ describe('checkForm', () => {
     ['a non-numeric cutoff', { ...good, cutoff: 'sixty' }, block, 'cutoff', /cutoff must be a number \(for example 60\); it is "sixty"/],
     ['a cutoff outside the scores', { ...good, cutoff: '80' }, block, 'cutoff', /cutoff 80 is outside the scores \(52 to 70\)/],
     ['a typed bandwidth that is not positive', { ...good, bandwidthMode: 'typed', bandwidth: '-2' }, block, 'bandwidth', /bandwidth must be a positive number/],
-    ['draws not whole', { ...good, draws: '99.5' }, block, 'draws', /draws must be a whole number from 99 to 99999/],
+    ['draws not whole', { ...good, draws: '99.5' }, block, 'draws', /draws must be a whole number of at least 1; it is "99.5"/],
   ] as const)('%s: a message beside its field, no check', (_what, form, data, field, message) => {
     const { errors, ready } = checkForm(form as PaneForm, data as DataBlock | Error | undefined);
     expect(errors[field as keyof typeof errors]).toMatch(message);
@@ -60,5 +60,16 @@ describe('checkForm', () => {
     rows[3][2] = 2;
     const { errors } = checkForm(good, { ...block, rows });
     expect(errors.treated).toBe('column "retrofit" (treated), row 7: treated must be 0, 1, TRUE or FALSE, found "2"');
+  });
+
+  // The one blank rule of cells.ts (trimBlank): zero-width spaces and NBSP pasted around a typed value are blank.
+  test('names and numbers typed with zero-width spaces or NBSP around them are read as without them', () => {
+    const { errors, ready } = checkForm(
+      { ...good, score: '\u200benergy_burden', outcomes: 'heating_bill\u200b, \u00a0', cutoff: '\u200b60\u00a0', seed: '\u200b7' },
+      block,
+    );
+    expect(errors).toEqual({});
+    expect(ready!.options).toMatchObject({ cutoff: 60, seed: 7 });
+    expect(ready!.input.outcomes.map((o) => o.name)).toEqual(['heating_bill']);
   });
 });

@@ -5,8 +5,7 @@
  *
  * @example binnedMeansAt(score, bill, 60).bins[0] // { from, to, mean, count, … }
  */
-import { chooseBandwidth } from '../bandwidth';
-import { binnedSeries, BinnedSeries, donutMask } from '../check';
+import { binnedSeries, BinnedSeries, donutMask, ruleBandwidth } from '../check';
 import { checkCutoff, Column, compact, completeRows, indexScores } from '../data';
 import { columnsInput, EstimateOptions, merged, ResultBase, windowCounts } from './common';
 
@@ -21,7 +20,7 @@ export function binnedMeansAt(score: Column, values: Column, cutoff: number, opt
   const { rows, dropped } = completeRows(y.values.length, [input.score.missing, y.missing, donut?.mask]);
   const r = indexScores(compact(input.score.values, rows));
   const v = compact(y.values, rows);
-  const bw = chooseBandwidth(r, v, cutoff, { rule: opts.rule, kernel, typed: opts.bandwidth });
+  const bw = ruleBandwidth(r, v, cutoff, { rule: opts.rule, kernel, typed: opts.bandwidth });
   const series = binnedSeries('values', r, v, cutoff, bw.value, kernel);
   return { bins: series.bins, bins_below: series.bins_below, bins_above: series.bins_above, rule: series.rule, fit: series.fit, bandwidth: bw.value, counts: windowCounts(r, cutoff, bw.value), rows: { used: rows.length, dropped }, warnings: merged(bw.warnings) };
 }

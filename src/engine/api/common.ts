@@ -5,7 +5,7 @@
  * `runCheck` does.
  */
 import { BandwidthRule } from '../bandwidth';
-import { CheckInput, DataColumn, Eligible } from '../check';
+import { addNew, CheckInput, DataColumn, Eligible } from '../check';
 import { checkColumns, Column } from '../data';
 import { CutlineError } from '../errors';
 import { KernelName, VarianceName } from '../fit';
@@ -96,6 +96,6 @@ export function windowCounts(score: ArrayLike<number>, cutoff: number, h: number
 /** Warnings of a step, then those of the result not already said. */
 export function merged(...lists: string[][]): string[] {
   const out: string[] = [];
-  for (const list of lists) for (const w of list) if (!out.includes(w)) out.push(w);
+  for (const list of lists) addNew(out, list);
   return out;
 }

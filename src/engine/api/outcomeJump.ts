@@ -8,8 +8,7 @@
  *
  * @example outcomeJump(score, bill, 60, { treated }).estimate // −78.42 on the demo
  */
-import { chooseBandwidth } from '../bandwidth';
-import { outcomeEstimates, settle, donutMask } from '../check';
+import { outcomeEstimates, settle, donutMask, ruleBandwidth } from '../check';
 import { checkCutoff, Column, completeRows, indexScores, compact } from '../data';
 import { boundaryWindow, jumpAt, windowWarnings } from '../fit';
 import { columnsInput, EstimateOptions, merged } from './common';
@@ -39,7 +38,7 @@ export function outcomeJump(score: Column, values: Column, cutoff: number, opts:
   const { rows, dropped } = completeRows(y.values.length, [input.score.missing, y.missing, input.cluster?.missing, donut?.mask]);
   const r = indexScores(compact(input.score.values, rows));
   const v = compact(y.values, rows);
-  const bw = chooseBandwidth(r, v, cutoff, { rule: opts.rule, kernel, typed: opts.bandwidth });
+  const bw = ruleBandwidth(r, v, cutoff, { rule: opts.rule, kernel, typed: opts.bandwidth });
   const win = boundaryWindow(r, cutoff, bw.value, kernel);
   const eligible = opts.eligible ?? 'above';
   const est = jumpAt(win, v, { variance, clusters: input.cluster && compact(input.cluster.codes, rows), sign: eligible === 'above' ? 1 : -1, level: opts.level });

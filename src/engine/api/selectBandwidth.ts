@@ -7,8 +7,8 @@
  *
  * @example selectBandwidth(score, bill, 60, { treated, purpose: 'test' }).bandwidth // 9.801 on the demo
  */
-import { BandwidthRule, chooseBandwidth } from '../bandwidth';
-import { settle, testBandwidth } from '../check';
+import { BandwidthRule } from '../bandwidth';
+import { ruleBandwidth, settle, testBandwidth } from '../check';
 import { Column, compact, completeRows, indexScores } from '../data';
 import { CutlineError } from '../errors';
 import { columnsInput, EstimateOptions, merged, ResultBase, windowCounts } from './common';
@@ -33,7 +33,7 @@ export function selectBandwidth(
     const y = input.outcomes[0];
     const { rows, dropped } = completeRows(y.values.length, [input.score.missing, y.missing]);
     const r = indexScores(compact(input.score.values, rows));
-    const bw = chooseBandwidth(r, compact(y.values, rows), cutoff, { rule: opts.rule, kernel: opts.kernel ?? 'triangular', typed: opts.bandwidth });
+    const bw = ruleBandwidth(r, compact(y.values, rows), cutoff, { rule: opts.rule, kernel: opts.kernel ?? 'triangular', typed: opts.bandwidth });
     return { bandwidth: bw.value, rule: bw.rule, counts: windowCounts(r, cutoff, bw.value), rows: { used: rows.length, dropped }, warnings: bw.warnings };
   }
   const s = settle(input, { ...opts, cutoff });

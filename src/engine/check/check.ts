@@ -17,6 +17,7 @@
  *   then below, every jump reported as eligible side − other side, with a warning.
  */
 import { BandwidthRule } from '../bandwidth';
+import { addNew } from './addNew';
 import { CutlineError } from '../errors';
 import { completeRows } from '../data';
 import { Estimate, estimatesAtCutoff, KernelName, VarianceName } from '../fit';
@@ -116,7 +117,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
   const tk = s.takeupRows;
   const opts = { bandwidth: h, kernel, variance, sign, level: options.level };
   const takeupEst = estimatesAtCutoff(tk.score, tk.treated, tk.treated, cutoff, { ...opts, clusters: tk.clusters, window: s.takeupWindow });
-  for (const w of takeupEst.warnings) if (!warnings.includes(w)) warnings.push(w);
+  addNew(warnings, takeupEst.warnings);
 
   const testH = testBandwidth(tk.score, tk.treated, cutoff, kernel, h, options.bandwidth);
   warnings.push(...testH.warnings);
@@ -130,7 +131,7 @@ export function runCheck(input: CheckInput, options: CheckOptions): CheckResult 
     const est = outcomeEstimates(s, p, takeupEst);
     const own = est.warnings.filter((w) => !warnings.includes(w));
     const v = outcomeValidity(s, input, col, p, testH.value, options);
-    for (const w of v.warnings) if (!own.includes(w) && !warnings.includes(w)) own.push(w);
+    addNew(own, v.warnings.filter((w) => !warnings.includes(w)));
     let compliers: OutcomeResult['compliers'];
     if (est.takeup.estimate > 0) {
       const c = complierSummary(p, cutoff, { bandwidth: h, kernel, sign }, options.bins === true);

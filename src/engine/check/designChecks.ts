@@ -23,6 +23,7 @@ import { localPolynomialDensityTest, LocalPolynomialDensityResult, mccraryTest, 
 import { CutlineError } from '../errors';
 import { holmAdjust } from '../numeric';
 import { distinctScoreWarning, windowDistinctScores } from '../data';
+import { addNew } from './addNew';
 
 export const DENSITY_CAUTION =
   'A jump in the density of the score is evidence of sorting around the cutoff, not proof of an invalid design (sorting unrelated to outcomes leaves the estimand intact); a smooth density is no proof of validity.';
@@ -74,9 +75,7 @@ export function densitySection(
   const lp = attempt('The local polynomial density test', warnings, () => localPolynomialDensityTest(score, cutoff, { sign: opts.sign }));
   // Both tests give the same mass-point caveat: say it once.
   const few = (w: string): boolean => w.startsWith('the score takes few distinct values');
-  for (const w of [...(m?.warnings ?? []), ...(lp?.warnings ?? [])]) {
-    if (!warnings.includes(w) && !(few(w) && warnings.some(few))) warnings.push(w);
-  }
+  addNew(warnings, [...(m?.warnings ?? []), ...(lp?.warnings ?? [])], (had, w) => had === w || (few(had) && few(w)));
   if (!lp && !m) return undefined;
   // Each test judged on its own window (data/repeatedScores.ts): a heaped or discrete score there makes it unreliable.
   const massy = (h: number): string | null => distinctScoreWarning(windowDistinctScores(score, cutoff, h), 'the density tests');

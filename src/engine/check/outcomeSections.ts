@@ -4,9 +4,10 @@
  * distributions — computed from a settled check (setting.ts), so that
  * `runCheck` and the entry points for one quantity share them.
  */
-import { complierCdf, complierDensity, complierMeans, complierGrid } from '../compliers';
+import { complierCdfArms, complierDensity, complierMeans, complierGrid } from '../compliers';
 import { CutoffEstimates, estimatesAtCutoff, KernelName } from '../fit';
 import { MultiplierName, validityReport } from '../validity';
+import { addNew } from './addNew';
 import type { ComplierSummary, ValiditySummary } from './check';
 import { CheckInput, DataColumn, Prepared, Setting } from './setting';
 import { complierWarnings, sensitivityMultiples } from './steps';
@@ -76,7 +77,7 @@ export function outcomeValidity(
     cells: vp.cells,
     cellLabels: input.within?.labels,
   });
-  for (const w of v.warnings) if (!warnings.includes(w)) warnings.push(w);
+  addNew(warnings, v.warnings);
   const summary: ValiditySummary = input.within ? { ...v, within: input.within.name } : v;
   return { summary, warnings };
 }
@@ -91,8 +92,7 @@ export function complierSummary(
   const y = p.outcome!;
   const m = complierMeans(p.score, p.treated, y, cutoff, o);
   const at = complierGrid(p.score, y, cutoff, o.bandwidth, o.kernel);
-  const c1 = complierCdf(p.score, p.treated, y, cutoff, at, 1, o);
-  const c0 = complierCdf(p.score, p.treated, y, cutoff, at, 0, o);
+  const [c1, c0] = complierCdfArms(p.score, p.treated, y, cutoff, at, [1, 0], o);
   const out: ComplierSummary = {
     mean_treated: m.mean_treated,
     mean_untreated: m.mean_untreated,

@@ -7,11 +7,11 @@
  * (data/indexedScore.ts) made here and dropped with the setting: what one
  * check derives from the scores is reused within it, never across calls.
  */
-import { BandwidthChoice, BandwidthRule, chooseBandwidth } from '../bandwidth';
+import { BandwidthChoice, BandwidthRule } from '../bandwidth';
 import { checkColumns, checkCutoff, IndexedScore, indexScores, compact, completeRows } from '../data';
 import { CutlineError } from '../errors';
 import { Window, KernelName, VarianceName } from '../fit';
-import { blameDonut, Donut, donutMask, Eligible, eligibleSide, estimatesBandwidth, requireSides, requireVaries } from './steps';
+import { blameDonut, Donut, donutMask, Eligible, eligibleSide, estimatesBandwidth, requireSides, requireVaries, ruleBandwidth } from './steps';
 import { clusterWarnings } from './designWarnings';
 import { emptySideMessage, noRowMessage } from './emptySide';
 
@@ -165,7 +165,7 @@ export function settle(input: CheckInput, options: SettingOptions): Setting {
   });
   const rule = { rule: options.rule, kernel, typed: options.bandwidth };
   const choose = (p: Prepared): BandwidthChoice =>
-    p.outcome ? estimatesBandwidth(p.score, p.treated, p.outcome, cutoff, rule) : chooseBandwidth(p.score, p.treated, cutoff, rule);
+    p.outcome ? estimatesBandwidth(p.score, p.treated, p.outcome, cutoff, rule) : ruleBandwidth(p.score, p.treated, cutoff, rule);
   const bandwidth = blameDonut(
     options.donut,
     () => choose(first),

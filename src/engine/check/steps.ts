@@ -7,7 +7,7 @@
  */
 import { BandwidthChoice, BandwidthRule, chooseBandwidth, bandwidthMse, widenForTies } from '../bandwidth';
 import { CutlineError } from '../errors';
-import { applyWeights, boundaryWindow, Window, KernelName } from '../fit';
+import { boundaryWindow, gathered, Window, KernelName } from '../fit';
 import { sortedOrder } from '../data';
 import { formatNumber } from '../numeric';
 import { MultiplierName, validityReport, ValidityAtBandwidth } from '../validity';
@@ -42,8 +42,15 @@ export function eligibleSide(
     }
     return { sign: given === 'above' ? 1 : -1, eligible: given, window, warnings: [] };
   }
-  const raw =
-    applyWeights(window.above.coef1[0], window.above.index, treated) - applyWeights(window.below.coef1[0], window.below.index, treated);
+  // Read from the sides' gathered treated column (kept for the estimates, which read it next).
+  const intercept = (side: Window['above']): number => {
+    const w = side.coef1[0];
+    const d = gathered(side, treated);
+    let a = 0;
+    for (let t = 0; t < w.length; t++) a += w[t] * d[t];
+    return a;
+  };
+  const raw = intercept(window.above) - intercept(window.below);
   const sign: 1 | -1 = raw < 0 ? -1 : 1;
   return { sign, eligible: sign > 0 ? 'above' : 'below', window, warnings: sign < 0 ? [FALLING_TAKEUP_WARNING] : [] };
 }
@@ -61,7 +68,25 @@ export function estimatesBandwidth(
   cutoff: number,
   opts: { rule?: BandwidthRule; kernel: KernelName; typed?: number },
 ): BandwidthChoice {
-  return chooseBandwidth(score, outcome, cutoff, { rule: opts.rule, kernel: opts.kernel, typed: opts.typed, treated });
+  return ruleBandwidth(score, outcome, cutoff, { rule: opts.rule, kernel: opts.kernel, typed: opts.typed, treated });
+}
+
+/**
+ * chooseBandwidth, with a rule's failure said to be about the bandwidth: when
+ * the data leave a rule too little to measure (too few units or distinct
+ * scores), a typed bandwidth is the way past it, so the error carries
+ * `argument: 'bandwidth'` and each face names its own bandwidth input (the
+ * command line's --bandwidth, a worksheet function's bandwidth parameter).
+ *
+ * @example ruleBandwidth(score, bill, 60, { kernel: 'triangular' }).value // 11.99 on the demo's heating bill
+ */
+export function ruleBandwidth(...args: Parameters<typeof chooseBandwidth>): BandwidthChoice {
+  try {
+    return chooseBandwidth(...args);
+  } catch (e) {
+    if (!(e instanceof CutlineError) || e.argument !== undefined || args[3].typed !== undefined) throw e;
+    throw new CutlineError(e.message, { code: e.code, argument: 'bandwidth', index: e.index });
+  }
 }
 
 /**
@@ -161,7 +186,7 @@ export function checkMultiples(multiples: number[], testH: number, score: ArrayL
     throw new CutlineError(
       `the sensitivity multiple ${bad} makes the validity test's bandwidth ${formatNumber(bad * testH)}, more than ${MAX_SPREAD} times the range of the scores (${formatNumber(lo)} to ${formatNumber(hi)}); ` +
         `choose multiples up to ${formatNumber(limit / testH)}`,
-      { code: 'option' },
+      { code: 'option', argument: 'sensitivity' },
     );
   }
 }
@@ -179,7 +204,7 @@ export function blameDonut<T>(donut: number | undefined, f: () => T, withoutDonu
     }
     throw new CutlineError(
       `the donut (radius ${donut}) leaves too few units or distinct scores near the cutoff for the bandwidth rule (it works without the donut); choose a smaller donut, or give a bandwidth`,
-      { code: 'too-few' },
+      { code: 'too-few', argument: 'donut' },
     );
   }
 }

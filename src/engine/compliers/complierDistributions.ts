@@ -135,8 +135,32 @@ export function complierCdf(
   at: number[],
   arm: 0 | 1,
   opts: ComplierOptions,
-): { at: number[]; cdf: number[]; decreasing: Array<{ from: number; to: number }> } {
+): ComplierCdf {
   checkArm(arm);
+  return complierCdfArms(score, treated, outcome, cutoff, at, [arm], opts)[0];
+}
+
+export interface ComplierCdf {
+  at: number[];
+  cdf: number[];
+  decreasing: Array<{ from: number; to: number }>;
+}
+
+/**
+ * complierCdf for several arms in one pass over the window (a check wants
+ * both): each arm's sums are taken in the same order as alone, so each equals
+ * complierCdf's to the last digit.
+ */
+export function complierCdfArms(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  outcome: ArrayLike<number>,
+  cutoff: number,
+  at: number[],
+  arms: Array<0 | 1>,
+  opts: ComplierOptions,
+): ComplierCdf[] {
+  arms.forEach(checkArm);
   checkAt(at);
   const p = prepare(score, treated, outcome, cutoff, opts);
   const order = at.map((_, j) => j).sort((a, b) => at[a] - at[b]);
@@ -144,32 +168,43 @@ export function complierCdf(
   // Signed weights of the arm's units: F(y) = Σ_{Y_i ≤ y} c_i, c = ±ω/π. Each
   // unit adds its weight at the first sorted `at` value ≥ Y_i (a bucket table, numeric/rankLookup.ts),
   // then a running sum gives F at every point: O(N log |at|), no sort of the window.
-  const bucket = new Float64Array(sortedAt.length + 1);
+  // bucket[d] collects the units with D = d (an arm not asked for is never read).
+  const bucket = [new Float64Array(sortedAt.length + 1), new Float64Array(sortedAt.length + 1)];
   const grid = rankLookup(Float64Array.from(sortedAt), sortedAt[0], sortedAt[sortedAt.length - 1]);
   for (const [side, s] of [[p.plus, 1], [p.minus, -1]] as const) {
     const w = side.coef1[0];
-    const c = (arm === 1 ? s : -s) / p.pi;
+    const c1 = s / p.pi;
+    const c0 = -s / p.pi;
     const d = gathered(side, treated);
     const y = gathered(side, outcome);
-    for (let t = 0; t < w.length; t++) {
-      if (d[t] !== arm) continue;
-      const v = y[t];
-      bucket[rankOf(grid, v)] += c * w[t];
+    const one = bucket[1];
+    const zero = bucket[0];
+    if (arms.length === 1) {
+      const arm = arms[0];
+      const out = bucket[arm];
+      const c = arm === 1 ? c1 : c0;
+      for (let t = 0; t < w.length; t++) if (d[t] === arm) out[rankOf(grid, y[t])] += c * w[t];
+    } else {
+      for (let t = 0; t < w.length; t++) {
+        if (d[t] === 1) one[rankOf(grid, y[t])] += c1 * w[t];
+        else zero[rankOf(grid, y[t])] += c0 * w[t];
+      }
     }
   }
-  const sortedCdf: number[] = [];
-  let acc = 0;
-  for (let j = 0; j < sortedAt.length; j++) {
-    acc += bucket[j];
-    sortedCdf.push(acc);
-  }
-  const cdf = new Array<number>(at.length);
-  order.forEach((j, r) => (cdf[j] = sortedCdf[r]));
-  const falls = sortedCdf.slice(1).map((v, r) => v < sortedCdf[r]);
-  return { at: [...at], cdf, decreasing: stretches(sortedAt, falls) };
+  return arms.map((arm) => {
+    const sortedCdf: number[] = [];
+    let acc = 0;
+    for (let j = 0; j < sortedAt.length; j++) {
+      acc += bucket[arm][j];
+      sortedCdf.push(acc);
+    }
+    const cdf = new Array<number>(at.length);
+    order.forEach((j, r) => (cdf[j] = sortedCdf[r]));
+    const falls = sortedCdf.slice(1).map((v, r) => v < sortedCdf[r]);
+    return { at: [...at], cdf, decreasing: stretches(sortedAt, falls) };
+  });
 }
 
-/** Silverman's rule of thumb on the window outcomes (see the doc comment). */
 export function silvermanBandwidth(values: number[]): number {
   const n = values.length;
   const s = [...values].sort((a, b) => a - b);

@@ -91,6 +91,18 @@ function computeNeighbourResiduals(side: SortedSide, values: ArrayLike<number>, 
     if (memo) memo.neighbours = nb;
   }
   const { start, first, last, G } = nb;
+  if (G === n) {
+    // Every score distinct (a continuous score): each group is one unit, its sum its value.
+    for (let t = 0; t < n; t++) {
+      const lo = first[t];
+      const hi = last[t];
+      let total = 0;
+      for (let k = lo; k <= hi; k++) total += v[k];
+      const count = hi - lo;
+      e[t] = Math.sqrt(count / (count + 1)) * (v[t] - (total - v[t]) / count);
+    }
+    return e;
+  }
   // Each group's compensated sum of V.
   const sums = new Float64Array(G);
   for (let g = 0; g < G; g++) {
@@ -139,9 +151,10 @@ function neighbourGroups(x: Float64Array, J: number): NeighbourGroups {
     t = u;
   }
   start[G] = n;
-  // Each group's score (x is sorted, so these ascend).
-  const gx = new Float64Array(G);
-  for (let g = 0; g < G; g++) gx[g] = x[start[g]];
+  // Each group's score (x is sorted, so these ascend); x itself when every score is distinct.
+  const gx = G === n ? x : new Float64Array(G);
+  if (G < n) for (let g = 0; g < G; g++) gx[g] = x[start[g]];
+  if (G === n && jj === NEIGHBOURS) return distinctNeighbours(x, J);
   const first = new Int32Array(G);
   const last = new Int32Array(G);
   for (let g = 0; g < G; g++) {
@@ -176,6 +189,43 @@ function neighbourGroups(x: Float64Array, J: number): NeighbourGroups {
     last[g] = hi;
   }
   return { J, G, start, first, last };
+}
+
+/**
+ * neighbourGroups when every score is distinct and J = 3 (a continuous score):
+ * each group one unit, the three nearest found among the three on each side.
+ * The same rule as the general walk (nearer of left and right, left on a tie;
+ * then every unit within the 3rd distance up to 1e-12 relative), in fewer steps.
+ */
+function distinctNeighbours(x: Float64Array, J: number): NeighbourGroups {
+  const n = x.length;
+  const start = new Int32Array(n + 1);
+  for (let t = 0; t <= n; t++) start[t] = t;
+  const first = new Int32Array(n);
+  const last = new Int32Array(n);
+  for (let g = 0; g < n; g++) {
+    const xg = x[g];
+    let l = g - 1;
+    let r = g + 1;
+    let far = 0;
+    for (let need = NEIGHBOURS; need > 0; need--) {
+      if (r >= n || (l >= 0 && xg - x[l] <= x[r] - xg)) {
+        far = xg - x[l];
+        l--;
+      } else {
+        far = x[r] - xg;
+        r++;
+      }
+    }
+    const reach = far + far * 1e-12;
+    let lo = l + 1;
+    while (lo > 0 && xg - x[lo - 1] <= reach) lo--;
+    let hi = r - 1;
+    while (hi < n - 1 && x[hi + 1] - xg <= reach) hi++;
+    first[g] = lo;
+    last[g] = hi;
+  }
+  return { J, G: n, start, first, last };
 }
 
 /** The e_i of the chosen variance for V on one side. */

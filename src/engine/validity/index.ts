@@ -6,5 +6,5 @@ export type { MultiplierName } from './validityBootstrap';
 export { validityMoments } from './validityMoments';
 export { validityReport } from './validityReport';
 export type { ValidityAtBandwidth, ValidityReport, ValidityReportOutcome } from './validityReport';
-export { MAX_DRAWS, MAX_GRID, resolveValidityOptions, validityMomentSets, validityTest } from './validityTest';
+export { resolveValidityOptions, validityMomentSets, validityTest } from './validityTest';
 export type { ValidityResult } from './validityTest';

@@ -40,8 +40,12 @@ export interface IntervalClass {
   lookup?: RankLookup;
 }
 
-/** The bins from the window's outcomes (any order) and the grid size G ≥ 2. */
-export function intervalClass(outcomes: ArrayLike<number>, grid: number): IntervalClass {
+/**
+ * The bins from the window's outcomes (any order) and the grid size G ≥ 2;
+ * `binsOut`, when given, receives the bin of each outcome (the moments' sums
+ * read them instead of looking each unit up again).
+ */
+export function intervalClass(outcomes: ArrayLike<number>, grid: number, binsOut?: Int32Array): IntervalClass {
   const N = outcomes.length;
   // Distinct values counted up to G + 1: a continuous outcome answers after G + 1 units.
   const seen = new Set<number>();
@@ -79,6 +83,7 @@ export function intervalClass(outcomes: ArrayLike<number>, grid: number): Interv
   for (let t = 0; t < N; t++) {
     const y = outcomes[t];
     const b = binOf(cls, y);
+    if (binsOut) binsOut[t] = b;
     if (y < binMin[b] || (y === binMin[b] && 1 / y < 0)) binMin[b] = y;
     if (y > binMax[b] || (y === binMax[b] && 1 / y < 0)) binMax[b] = y;
   }

@@ -71,7 +71,8 @@ export interface MomentSet {
   bMinus: Float64Array;
 }
 
-function sideSums(side: SideFit, cls: IntervalClass, treated: ArrayLike<number>, outcome: ArrayLike<number>): SideSums {
+/** `bins`: the bin of each of the side's units in window order (intervalClass's binsOut), else looked up. */
+function sideSums(side: SideFit, cls: IntervalClass, treated: ArrayLike<number>, outcome: ArrayLike<number>, bins?: Int32Array): SideSums {
   const G = cls.bins;
   const n = side.index.length;
   const [om, be] = side.coef1;
@@ -85,7 +86,7 @@ function sideSums(side: SideFit, cls: IntervalClass, treated: ArrayLike<number>,
   let s2 = 0;
   const ys = gathered(side, outcome);
   const ds = gathered(side, treated);
-  const cellOf = (t: number): number => binOf(cls, ys[t]) + (ds[t] === 1 ? 0 : G);
+  const cellOf = bins ? (t: number): number => bins[t] + (ds[t] === 1 ? 0 : G) : (t: number): number => binOf(cls, ys[t]) + (ds[t] === 1 ? 0 : G);
   for (let t = 0; t < n; t++) {
     const c = cellOf(t);
     const w = om[t];
@@ -119,7 +120,8 @@ function sideVariance(s: SideSums, a: number, b: number, Q0: number, Q1: number)
 
 /**
  * Every moment of the window. `sign` +1: the + side is above the cutoff;
- * −1: below (take-up falls at c as the score rises).
+ * −1: below (take-up falls at c as the score rises). `bins`: each side's
+ * units' bins, when intervalClass has found them.
  */
 export function validityMoments(
   win: Window,
@@ -128,11 +130,12 @@ export function validityMoments(
   outcome: ArrayLike<number>,
   trim: number,
   sign: 1 | -1,
+  bins?: { above: Int32Array; below: Int32Array },
 ): MomentSet {
   const plusSide = sign === 1 ? win.above : win.below;
   const minusSide = sign === 1 ? win.below : win.above;
-  const plus = sideSums(plusSide, cls, treated, outcome);
-  const minus = sideSums(minusSide, cls, treated, outcome);
+  const plus = sideSums(plusSide, cls, treated, outcome, bins && (sign === 1 ? bins.above : bins.below));
+  const minus = sideSums(minusSide, cls, treated, outcome, bins && (sign === 1 ? bins.below : bins.above));
   const root = Math.sqrt(plus.s0 + minus.s0);
   const floor = trim * root;
   const denFloor = Math.max(floor, 1e-8 * root);

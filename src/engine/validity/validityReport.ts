@@ -34,7 +34,7 @@
 import { CutlineError } from '../errors';
 import { formatNumber } from '../numeric';
 import { SideTrend, trendRemoved } from './trendRemoved';
-import { resolveValidityOptions, ValidityNotApplicable, ValidityOptions, ValidityOutcome, ValidityResult, validityTest } from './validityTest';
+import { checkColumns, resolveValidityOptions, ValidityNotApplicable, ValidityOptions, ValidityOutcome, ValidityResult, validityTestChecked } from './validityTest';
 
 export interface ValidityReportOptions extends ValidityOptions {
   /** Multiples of `bandwidth` for the sensitivity table besides 1 (default none). */
@@ -140,17 +140,24 @@ export function validityReport(
   delete (testOptions as ValidityReportOptions).multiples;
   delete (testOptions as ValidityReportOptions).trendGuard;
 
-  // The observed test first: it checks the columns before the fit reads them.
-  const observed = validityTest(score, treated, outcome, cutoff, testOptions);
+  // The columns are checked once, before the fit reads them; every run below uses them as checked
+  // (the trend guard's Ỹ is computed from them: finite, on the same rows).
+  if (!Number.isFinite(cutoff)) throw new CutlineError(`cutoff must be a finite number, got ${cutoff}`);
+  const n = checkColumns(score, treated, outcome, options.rows);
+  const test = (y: ArrayLike<number>, bandwidth: number): ValidityOutcome => {
+    const o = { ...testOptions, bandwidth };
+    return validityTestChecked(score, treated, y, cutoff, o, resolveValidityOptions(o), n);
+  };
+  const observed = test(outcome, options.bandwidth);
   if (!observed.applicable) return observed;
   const trend = guardOn ? trendRemoved(score, outcome, cutoff, options.rows) : undefined;
 
   const run = (bandwidth: number, obs?: ValidityOutcome): AtOne => {
-    const o = obs ?? validityTest(score, treated, outcome, cutoff, { ...testOptions, bandwidth });
+    const o = obs ?? test(outcome, bandwidth);
     if (!trend) return { observed: o, guard: 'off' };
     if (!o.applicable || windowDistinctOutcomes(score, outcome, cutoff, bandwidth, options.rows, r.grid) <= r.grid)
       return { observed: o, guard: 'few outcome values' };
-    const adjusted = validityTest(score, treated, trend.values, cutoff, { ...testOptions, bandwidth }) as ValidityResult;
+    const adjusted = test(trend.values, bandwidth) as ValidityResult;
     return { observed: o, adjusted, guard: 'applied' };
   };
 

@@ -36,6 +36,7 @@
  */
 import { boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
+import { VALIDITY_LIMITS as LIMITS } from '../limits';
 import { formatNumber } from '../numeric';
 import { intervalClass } from './intervalClass';
 import { MultiplierName, bootstrapMaxima, selection } from './validityBootstrap';
@@ -112,10 +113,6 @@ export interface ResolvedOptions {
   sign: 1 | -1;
 }
 
-/** Upper limits: beyond them a check runs for hours or exhausts memory (draws × intervals, G² intervals). */
-export const MAX_DRAWS = 100000;
-export const MAX_GRID = 1000;
-
 /** Checks the options and fills defaults; errors name the option. */
 export function resolveValidityOptions(o: ValidityOptions): ResolvedOptions {
   const draws = o.draws ?? 999;
@@ -124,12 +121,12 @@ export function resolveValidityOptions(o: ValidityOptions): ResolvedOptions {
   const trim = o.trim ?? 0.1;
   const multiplier = o.multiplier ?? 'normal';
   const sign = o.sign ?? 1;
-  if (!Number.isInteger(draws) || draws < 1) throw new CutlineError(`draws must be a whole number of at least 1, got ${draws}`);
-  if (draws > MAX_DRAWS) throw new CutlineError(`draws must be at most ${MAX_DRAWS}, got ${draws}`);
-  if (!Number.isInteger(seed) || seed < 0 || seed > 4294967295)
-    throw new CutlineError(`seed must be a whole number from 0 to 4294967295, got ${seed}`);
-  if (!Number.isInteger(grid) || grid < 2) throw new CutlineError(`grid must be a whole number of at least 2, got ${grid}`);
-  if (grid > MAX_GRID) throw new CutlineError(`grid must be at most ${MAX_GRID}, got ${grid}`);
+  if (!Number.isInteger(draws) || draws < LIMITS.draws.min) throw new CutlineError(`draws must be a whole number of at least ${LIMITS.draws.min}, got ${draws}`);
+  if (draws > LIMITS.draws.max) throw new CutlineError(`draws must be at most ${LIMITS.draws.max}, got ${draws}`);
+  if (!Number.isInteger(seed) || seed < LIMITS.seed.min || seed > LIMITS.seed.max)
+    throw new CutlineError(`seed must be a whole number from ${LIMITS.seed.min} to ${LIMITS.seed.max}, got ${seed}`);
+  if (!Number.isInteger(grid) || grid < LIMITS.grid.min) throw new CutlineError(`grid must be a whole number of at least ${LIMITS.grid.min}, got ${grid}`);
+  if (grid > LIMITS.grid.max) throw new CutlineError(`grid must be at most ${LIMITS.grid.max}, got ${grid}`);
   if (!(trim >= 0) || !Number.isFinite(trim)) throw new CutlineError(`trim must be a number of at least 0, got ${trim}`);
   if (multiplier !== 'normal' && multiplier !== 'rademacher')
     throw new CutlineError(`multiplier must be "normal" or "rademacher", got "${String(multiplier)}"`);
@@ -215,13 +212,15 @@ function momentsFor(
     ys.set(gathered(side, outcome), u);
     u += side.index.length;
   }
-  const cls = intervalClass(ys, r.grid);
+  const bins = new Int32Array(ys.length);
+  const cls = intervalClass(ys, r.grid, bins);
   if (cls.singleValues && cls.distinct < 2)
     throw new CutlineError(
       `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${formatNumber(o.bandwidth)}); ` +
         `the validity test needs an outcome that varies there — widen the bandwidth`,
     );
-  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign);
+  const na = win.above.index.length;
+  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign, { above: bins.subarray(0, na), below: bins.subarray(na) });
   const left: WindowMoments['left'] = [];
   if (treatedMinus === 0)
     left.push({
@@ -303,7 +302,23 @@ export function validityTest(
 ): ValidityOutcome {
   const r = resolveValidityOptions(options);
   if (!Number.isFinite(cutoff)) throw new CutlineError(`cutoff must be a finite number, got ${cutoff}`);
-  const n = checkColumns(score, treated, outcome, options.rows);
+  return validityTestChecked(score, treated, outcome, cutoff, options, r, checkColumns(score, treated, outcome, options.rows));
+}
+
+/**
+ * validityTest on columns already checked (checkColumns: `n` rows used) with
+ * options already resolved: the validity report checks once for all its runs
+ * (both versions, every bandwidth), a pass over every row each time otherwise.
+ */
+export function validityTestChecked(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  outcome: ArrayLike<number>,
+  cutoff: number,
+  options: ValidityOptions,
+  r: ResolvedOptions,
+  n: number,
+): ValidityOutcome {
   const { windows, cellIds } = validityMomentSets(score, treated, outcome, cutoff, options, r);
   const plusName = r.sign === 1 ? 'above' : 'below';
   const minusName = r.sign === 1 ? 'below' : 'above';

@@ -5,7 +5,7 @@
  * decreasing / negative stretches.
  */
 import { boundaryWindow } from '../../../src/engine/fit/boundaryWindow';
-import { complierCdf, complierDensity, complierMeans } from '../../../src/engine/compliers/complierDistributions';
+import { complierCdf, complierCdfArms, complierDensity, complierMeans } from '../../../src/engine/compliers/complierDistributions';
 import { CutlineError } from '../../../src/engine/errors';
 import { effectAt } from '../../../src/engine/fit/jumpAt';
 import { normalCdf } from '../../../src/engine/numeric/normal';
@@ -114,4 +114,17 @@ test('results keep the order of `at`; bad input is a CutlineError', () => {
   expect(() => complierDensity(d.score, d.treated, d.outcome, 0, [1], 1, { ...o, densityBandwidth: -1 })).toThrow(
     'densityBandwidth must be a positive number, got -1',
   );
+});
+
+test('both arms in one pass equal each arm alone, to the last digit', () => {
+  // The check computes F₁ and F₀ together (complierCdfArms); a worksheet asks for one arm (complierCdf).
+  for (const kind of ['continuous', 'ties', 'binary'] as const) {
+    const d = simulate(1500, 5, kind);
+    const at = [-1, -0.3, 0, 0.2, 0.5, 1, 2];
+    const o = { bandwidth: 0.6, kernel: 'triangular' as const };
+    const [one, zero] = complierCdfArms(d.score, d.treated, d.outcome, 0, at, [1, 0], o);
+    expect(one).toEqual(complierCdf(d.score, d.treated, d.outcome, 0, at, 1, o));
+    expect(zero).toEqual(complierCdf(d.score, d.treated, d.outcome, 0, at, 0, o));
+    expect(one.cdf).not.toEqual(zero.cdf);
+  }
 });
