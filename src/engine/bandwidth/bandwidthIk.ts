@@ -20,8 +20,8 @@
  * r̂_Y₊ + r̂_Y₋ + τ̃²(r̂_D₊ + r̂_D₋); the steps 2–4 are run for Y and D separately.
  */
 import { boundaryConstants } from './bandwidthConstants';
-import { medianBand, olsCoefficients, pilotCovariance, pilotVariance, Pilots, pilotWindow, thirdDerivative } from './bandwidthPilots';
-import { boundaryWindow, KernelName, smoothJump } from '../fit';
+import { medianBand, pilotCovariance, pilotVariance, Pilots, pilotWindow, thirdDerivative } from './bandwidthPilots';
+import { boundaryWindow, fitPolynomial, KernelName, smoothJump } from '../fit';
 import { widenForTies } from './bandwidthTies';
 import { CutlineError } from '../errors';
 
@@ -59,37 +59,31 @@ function sideCurvature(
 ): IkSide {
   let h2 = 3.56 * Math.pow(sigma2 / (density * m3 * m3), 1 / 7) * Math.pow(nSide, -1 / 7);
   if (!(h2 > 0) || !Number.isFinite(h2)) h2 = Infinity; // m̂₃ = 0 or σ̂² = 0: the whole side
-  const rows: number[] = [];
+  const xs: number[] = [];
+  const ys: number[] = [];
   for (let i = 0; i < score.length; i++) {
     const x = score[i] - cutoff;
-    if ((x >= 0) === above && Math.abs(x) <= h2) rows.push(i);
+    if ((x >= 0) === above && Math.abs(x) <= h2) {
+      xs.push(x);
+      ys.push(values[i]);
+    }
   }
-  const scale = Number.isFinite(h2) ? h2 : 1;
-  const beta = olsCoefficients(
-    Int32Array.from(rows),
-    3,
-    (i, z) => {
-      const u = (score[i] - cutoff) / scale;
-      z[0] = 1;
-      z[1] = u;
-      z[2] = u * u;
-    },
-    values,
-  );
+  // The engine's polynomial fit (fit/polyFit.ts), centred and scaled on the side's units.
+  const beta = fitPolynomial(xs, ys, 2);
   if (!beta) {
     throw new CutlineError(
       `the score takes too few distinct values within ${h2.toPrecision(4)} ${above ? 'above' : 'below'} the cutoff ` +
-        `(${rows.length} units) for the ik rule to measure the curvature of the data (it needs 3); give a bandwidth instead`,
+        `(${xs.length} units) for the ik rule to measure the curvature of the data (it needs 3); give a bandwidth instead`,
     );
   }
-  const m2 = (2 * beta[2]) / (scale * scale);
-  const n2 = rows.length;
+  const m2 = 2 * beta[2];
+  const n2 = xs.length;
   const r = (2160 * sigma2) / (n2 * Math.pow(h2, 4));
   return { sigma2, h2, n2, m2, r: Number.isFinite(r) ? r : 0 };
 }
 
 function curvature(score: ArrayLike<number>, values: ArrayLike<number>, cutoff: number, p: Pilots, band: Int32Array): IkCurvature {
-  const m3 = thirdDerivative(score, values, cutoff, band, p.h1);
+  const m3 = thirdDerivative(score, values, cutoff, band);
   return {
     m3,
     below: sideCurvature(score, values, cutoff, false, pilotVariance(values, p.near.below), p.density, m3, p.nBelow),

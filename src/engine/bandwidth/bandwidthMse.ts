@@ -93,7 +93,7 @@ export function bandwidthMse(
   const psiPilot = d ? ratioPsi(y.psi, d.psi, y.estimate, d.estimate) : y.psi;
   const A = p.h1 * varianceOf(psiPilot);
 
-  const m3 = thirdDerivative(score, values, cutoff, medianBand(score, cutoff), p.h1);
+  const m3 = thirdDerivative(score, values, cutoff, medianBand(score, cutoff));
   const c2 = boundaryConstants(kernel, 2, 2).constant;
   const pilotB = (above: boolean): number => {
     const sigma2 = pilotVariance(values, above ? p.near.above : p.near.below);

@@ -7,12 +7,14 @@
  *   side, the sample variances (denominator N − 1) of each column among the
  *   units with c − h₁ ≤ R < c and c ≤ R ≤ c + h₁;
  * - m̂₃: the third derivative, 6 × the cubic coefficient of an ordinary least
- *   squares fit of V on (1, 1{R ≥ c}, x, x², x³) among the units whose score
- *   lies between the median score below and the median score above the cutoff.
+ *   squares fit of V on (1, x, x², x³, 1{R ≥ c}) among the units whose score
+ *   lies between the median score below and the median score above the cutoff
+ *   (the engine's polynomial fit, fit/polyFit.ts, with a step).
  */
 import { rememberedOn, lowerBound, orderView, sortedOrder, valuesAt } from '../data';
 import { CutlineError } from '../errors';
-import { sampleCovariance, sampleVariance, invertSmall } from '../numeric';
+import { sampleCovariance, sampleVariance } from '../numeric';
+import { PolyFrame, polyCoefficients, polyCross, polyFrame, polyInverse, polyMoments } from '../fit';
 
 export interface Pilots {
   n: number;
@@ -85,32 +87,6 @@ export function pilotCovariance(a: ArrayLike<number>, b: ArrayLike<number>, idx:
   return sampleCovariance(pick(a, idx), pick(b, idx));
 }
 
-/** OLS coefficients of V on the given regressors (rows of design built by `row`). */
-export function olsCoefficients(
-  rows: Int32Array,
-  p: number,
-  row: (i: number, out: Float64Array) => void,
-  values: ArrayLike<number>,
-): Float64Array | null {
-  const xtx = Array.from({ length: p }, () => new Array<number>(p).fill(0));
-  const xty = new Array<number>(p).fill(0);
-  const z = new Float64Array(p);
-  for (let t = 0; t < rows.length; t++) {
-    row(rows[t], z);
-    const v = values[rows[t]];
-    for (let a = 0; a < p; a++) {
-      xty[a] += z[a] * v;
-      for (let b = 0; b <= a; b++) xtx[a][b] += z[a] * z[b];
-    }
-  }
-  for (let a = 0; a < p; a++) for (let b = a + 1; b < p; b++) xtx[a][b] = xtx[b][a];
-  const inv = invertSmall(xtx);
-  if (!inv) return null;
-  const beta = new Float64Array(p);
-  for (let a = 0; a < p; a++) for (let b = 0; b < p; b++) beta[a] += inv[a][b] * xty[b];
-  return beta;
-}
-
 /** Units between the median score below and the median score above the cutoff (a slice of the sorted order). */
 export function medianBand(score: ArrayLike<number>, cutoff: number): Int32Array {
   return rememberedOn(score, `band|${cutoff}`, () => computeMedianBand(score, cutoff));
@@ -128,63 +104,21 @@ function computeMedianBand(score: ArrayLike<number>, cutoff: number): Int32Array
   return order.subarray(lowerBound(score, order, mLo, false), lowerBound(score, order, mHi, true));
 }
 
-/** (X'X)⁻¹ of the step cubic on the band: the scores alone (a score handle keeps it for every column of a check). */
-function cubicInverse(score: ArrayLike<number>, cutoff: number, band: Int32Array, scale: number): number[][] | null {
-  // Regressors (1, 1{R ≥ c}, u, u², u³) with u = x/scale for conditioning; the cubic coefficient is rescaled back.
-  return rememberedOn(score, `cubic|${cutoff}|${scale}|${band.byteOffset}|${band.length}`, () => {
-    const m = new Float64Array(7); // Σ u^k, k = 0..6
-    const ms = new Float64Array(4); // Σ_{R ≥ c} u^k, k = 0..3
+/** The step cubic's frame and Γ⁻¹ on the band: the scores alone (a score handle keeps them for every column of a check). */
+function cubicInverse(score: ArrayLike<number>, cutoff: number, band: Int32Array): { frame: PolyFrame; inv: number[][] | null } {
+  return rememberedOn(score, `cubic|${cutoff}|${band.byteOffset}|${band.length}`, () => {
     const r = valuesAt(band, score, orderView(score, band));
-    for (let t = 0; t < band.length; t++) {
-      const u = (r[t] - cutoff) / scale;
-      const u2 = u * u;
-      const u3 = u2 * u;
-      m[0] += 1;
-      m[1] += u;
-      m[2] += u2;
-      m[3] += u3;
-      m[4] += u2 * u2;
-      m[5] += u2 * u3;
-      m[6] += u3 * u3;
-      if (u >= 0) {
-        ms[0] += 1;
-        ms[1] += u;
-        ms[2] += u2;
-        ms[3] += u3;
-      }
-    }
-    const a = [
-      [m[0], ms[0], m[1], m[2], m[3]],
-      [ms[0], ms[0], ms[1], ms[2], ms[3]],
-      [m[1], ms[1], m[2], m[3], m[4]],
-      [m[2], ms[2], m[3], m[4], m[5]],
-      [m[3], ms[3], m[4], m[5], m[6]],
-    ];
-    return invertSmall(a);
+    // u = (R − c)/max|R − c| over the band: every power of u is at most 1, so the normal equations stay accurate.
+    const frame = polyFrame(r, cutoff);
+    return { frame, inv: polyInverse(polyMoments(r, 3, frame, { step: cutoff })) };
   });
 }
 
-/** Third derivative m̂₃ of V at the cutoff from the global cubic with a step. */
-export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<number>, cutoff: number, band: Int32Array, scale: number): number {
-  // Regressors (1, 1{R ≥ c}, u, u², u³) with u = x/scale for conditioning; the cubic coefficient is rescaled back.
-  const inv = cubicInverse(score, cutoff, band, scale);
+/** Third derivative m̂₃ of V at the cutoff from the global cubic with a step (the engine's polynomial fit, fit/polyFit.ts). */
+export function thirdDerivative(score: ArrayLike<number>, values: ArrayLike<number>, cutoff: number, band: Int32Array): number {
+  const { frame, inv } = cubicInverse(score, cutoff, band);
   if (!inv) throw new CutlineError('the score takes too few distinct values between the medians of the two sides for the bandwidth rule to measure the curvature of the data (a cubic needs 4); give a bandwidth');
-  const xty = [0, 0, 0, 0, 0];
   const view = orderView(score, band);
-  const r = valuesAt(band, score, view);
-  const vs = valuesAt(band, values, view);
-  for (let t = 0; t < band.length; t++) {
-    const u = (r[t] - cutoff) / scale;
-    const v = vs[t];
-    const uv = u * v;
-    xty[0] += v;
-    if (u >= 0) xty[1] += v;
-    xty[2] += uv;
-    xty[3] += u * uv;
-    xty[4] += u * u * uv;
-  }
-  let b4 = 0;
-  for (let k = 0; k < 5; k++) b4 += inv[4][k] * xty[k];
-  return (6 * b4) / (scale * scale * scale);
+  const beta = polyCoefficients(inv, polyCross(valuesAt(band, score, view), valuesAt(band, values, view), 3, frame, { step: cutoff }), frame, 3, cutoff);
+  return 6 * beta[3];
 }
-

@@ -41,7 +41,7 @@ import { CutlineError } from '../errors';
 import { orderView, sortedOrder, valuesAt, countDistinctSorted, distinctScoreWarning, requireBothSides, scoreSummary, ScoreSummary } from '../data';
 import { firstAtLeast, invertSmall, normalQuantile, twoSidedPvalue, formatNumber } from '../numeric';
 import { histogramHeights, mccraryDefaultBin } from './densityMcCrary';
-import { fitPolynomial, polyDerivative, polyValue } from '../fit';
+import { coefficientWeights, fitPolynomial, polyDerivative, polyFrame, polyInverse, polyMoments, polyValue } from '../fit';
 
 export interface LocalPolynomialDensityOptions {
   bandwidth?: number;
@@ -138,33 +138,14 @@ interface SideWindow {
   F: Float64Array;
 }
 
-/** Slope weights (x units) of the degree-p triangular fit on one side. */
+/** Slope weights (x units) of the degree-p triangular fit on one side (the local fit at the cutoff, polyFit.ts). */
 function slopeWeights(x: Float64Array, h: number, p: number, side: string): Float64Array {
-  const q = p + 1;
-  const mom = new Float64Array(2 * p + 1);
-  for (let i = 0; i < x.length; i++) {
-    const u = x[i] / h;
-    let w = 1 - Math.abs(u);
-    for (let a = 0; a <= 2 * p; a++) {
-      mom[a] += w;
-      w *= u;
-    }
-  }
-  const inv = invertSmall(Array.from({ length: q }, (_, a) => Array.from({ length: q }, (_, b) => mom[a + b])));
+  const k = new Float64Array(x.length);
+  for (let i = 0; i < x.length; i++) k[i] = 1 - Math.abs(x[i] / h);
+  const frame = polyFrame(x, 0, undefined, h);
+  const inv = polyInverse(polyMoments(x, p, frame, { weights: k }));
   if (!inv) throw new CutlineError(`the density window ${side} the cutoff cannot be fitted (too few distinct scores); widen the density bandwidth`);
-  const out = new Float64Array(x.length);
-  const c = inv[1];
-  for (let i = 0; i < x.length; i++) {
-    const u = x[i] / h;
-    let s = 0;
-    let pw = 1;
-    for (let a = 0; a < q; a++) {
-      s += c[a] * pw;
-      pw *= u;
-    }
-    out[i] = (s * (1 - Math.abs(u))) / h;
-  }
-  return out;
+  return coefficientWeights(x, k, inv, frame, 1);
 }
 
 interface SideFitResult {

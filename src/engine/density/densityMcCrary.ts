@@ -150,7 +150,7 @@ function sideIntercept(x: Float64Array, y: Float64Array, h: number, side: string
       `the density bandwidth ${formatNumber(h, 6)} holds ${bins} bin${bins === 1 ? '' : 's'} ${side} the cutoff; at least 3 are needed — widen the bandwidth or narrow the bin`,
     );
   }
-  const a = fitPolynomial(x, y, 1, w);
+  const a = fitPolynomial(x, y, 1, { weights: w, about: 0 });
   if (!a) throw new CutlineError(`the density heights ${side} the cutoff cannot be fitted; widen the density bandwidth`);
   return { f: a[0], bins };
 }

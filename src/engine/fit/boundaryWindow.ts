@@ -19,7 +19,8 @@ import { IndexedScore, lowerBound, OrderView, orderView, sortedOrder, valuesAt }
 import { CutlineError } from '../errors';
 import { KernelName, kernelWeight } from './kernels';
 import type { NeighbourGroups } from './residuals';
-import { invertSmall, argsortBy, formatNumber } from '../numeric';
+import { argsortBy, formatNumber } from '../numeric';
+import { coefficientWeights, PolyMoments, polyFrame, polyInverse, polyMoments } from './polyFit';
 
 
 export interface SideFit {
@@ -71,92 +72,23 @@ function sideName(above: boolean): string {
   return above ? 'above' : 'below';
 }
 
-/** The window's kernel moments Σ k uʲ (j ≤ 2p), u = x/s, and the scale s (computed once for the line and the curve). */
-interface WindowMoments {
-  sc: number;
-  mom: number[];
+/** The window's moments Σ k uʲ (j ≤ 4, u = x/s, s its largest |x|): one pass serves the line and the curve. */
+function windowMoments(x: Float64Array, k: Float64Array, h: number): PolyMoments {
+  // Scaled by the window's largest |x|, not h: a bandwidth far beyond the data would make every u tiny and the normal equations look singular.
+  return polyMoments(x, 2, polyFrame(x, 0, undefined, h), { weights: k });
 }
 
-function windowMoments(x: Float64Array, k: Float64Array, h: number, p: number): WindowMoments {
-  const n = x.length;
-  // Moments in u = x/s, s the window's largest |x| (not h: a bandwidth far beyond the
-  // data would make every u tiny and the normal equations look singular); Σ k u^(a+b).
-  let sc = 0;
-  for (let i = 0; i < n; i++) sc = Math.max(sc, Math.abs(x[i]));
-  if (!(sc > 0)) sc = h;
-  if (p <= 2) {
-    // Unrolled moments Σ k uʲ, j ≤ 4 (the only degrees the engine fits).
-    let m0 = 0;
-    let m1 = 0;
-    let m2 = 0;
-    let m3 = 0;
-    let m4 = 0;
-    for (let i = 0; i < n; i++) {
-      const u = x[i] / sc;
-      const ku = k[i] * u;
-      const ku2 = ku * u;
-      m0 += k[i];
-      m1 += ku;
-      m2 += ku2;
-      m3 += ku2 * u;
-      m4 += ku2 * u * u;
-    }
-    // All five, whatever p: one pass serves the line and the curve alike.
-    return { sc, mom: [m0, m1, m2, m3, m4] };
-  }
-  const mom = new Array<number>(2 * p + 1).fill(0);
-  for (let i = 0; i < n; i++) {
-    const u = x[i] / sc;
-    let pw = k[i];
-    for (let a = 0; a <= 2 * p; a++) {
-      mom[a] += pw;
-      pw *= u;
-    }
-  }
-  return { sc, mom };
-}
-
-/** Coefficient weights of the degree-p fit, W_j(i) in units of x (not x/h); `wm` from windowMoments of degree ≥ p. */
-function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, above: boolean, only?: number, wm = windowMoments(x, k, h, p)): Float64Array[] {
-  const n = x.length;
-  const q = p + 1;
-  const m: number[][] = Array.from({ length: q }, () => new Array<number>(q).fill(0));
-  const { sc, mom } = wm;
-  for (let a = 0; a < q; a++) for (let b = 0; b < q; b++) m[a][b] = mom[a + b];
-  const inv = invertSmall(m);
+/** Coefficient weights W_j(i) (x units) of the degree-p fit, for the rows asked for (all when `only` is absent). */
+function polyWeights(x: Float64Array, k: Float64Array, h: number, p: number, above: boolean, only: number | undefined, wm: PolyMoments): Float64Array[] {
+  const inv = polyInverse(wm, p);
   if (!inv) {
     throw new CutlineError(
       `the window (bandwidth ${formatNumber(h, 6)}) ${sideName(above)} the cutoff cannot be fitted by a degree-${p} polynomial: ` +
         `its scores take too few distinct values — widen the bandwidth`,
     );
   }
-  const out = Array.from({ length: q }, (_, j) => new Float64Array(only === undefined || only === j ? n : 0));
-  for (let j = 0; j < q; j++) {
-    if (only !== undefined && j !== only) continue;
-    // Row j of Γ⁻¹ divided by s^j, as a polynomial in u evaluated by Horner's rule.
-    const c = inv[j].map((v) => v / Math.pow(sc, j));
-    const o = out[j];
-    if (q === 2) {
-      const [c0, c1] = c;
-      for (let i = 0; i < n; i++) o[i] = (c0 + c1 * (x[i] / sc)) * k[i];
-    } else if (q === 3) {
-      const [c0, c1, c2] = c;
-      for (let i = 0; i < n; i++) {
-        const u = x[i] / sc;
-        o[i] = (c0 + u * (c1 + u * c2)) * k[i];
-      }
-    } else {
-      for (let i = 0; i < n; i++) {
-        const u = x[i] / sc;
-        let s = c[q - 1];
-        for (let b = q - 2; b >= 0; b--) s = s * u + c[b];
-        o[i] = s * k[i];
-      }
-    }
-  }
-  return out;
+  return Array.from({ length: p + 1 }, (_, j) => (only === undefined || only === j ? coefficientWeights(x, k, inv, wm.frame, j) : new Float64Array(0)));
 }
-
 
 /**
  * Positions inside the window on each side, sorted by score (ties by
@@ -234,7 +166,7 @@ function fitPositions(
       `all scores in the window ${sideName(above)} the cutoff are equal (bandwidth ${formatNumber(h, 6)}); a line cannot be fitted — widen the bandwidth`,
     );
   }
-  const wm = windowMoments(x, k, h, 2);
+  const wm = windowMoments(x, k, h);
   const [w0, w1] = polyWeights(x, k, h, 1, above, undefined, wm);
   const fit: SideFit = { above, index, x, k, coef1: [w0, w1], distinct, memo: sideMemo(orderView(score, index)) };
   if (withQuadratic) {
@@ -284,7 +216,7 @@ export function curvatureWeights(
       `the score takes only ${distinct} distinct value${distinct === 1 ? '' : 's'} within ${formatNumber(b, 6)} ${sideName(above)} the cutoff, too few for the bandwidth rule to measure the data's curvature (it needs 3); give a bandwidth instead`,
     );
   }
-  return { index, x, q2: polyWeights(x, k, b, 2, above, 2)[2], memo: sideMemo(orderView(score, index)) };
+  return { index, x, q2: polyWeights(x, k, b, 2, above, 2, windowMoments(x, k, b))[2], memo: sideMemo(orderView(score, index)) };
 }
 
 function checkBandwidth(h: number): void {
