@@ -36,5 +36,6 @@ export async function readTable(file: string, sheet?: string, numeric: string[] 
   // UTF-16 text holds zero bytes too: parseCsv refuses it with a hint to save it as UTF-8.
   if (bytes.includes(0) && !looksLikeUtf16(bytes)) throw new CutlineError(`${file} is neither a CSV text nor an XLSX workbook (it holds binary data): save the data as CSV UTF-8 or .xlsx`);
   const wanted = (header: string[]) => numeric.map((name) => columnIndex(header, name));
-  return { table: parseCsv(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.length), file, undefined, wanted), bytes, isXlsx: false };
+  // The Buffer itself (a Uint8Array): its indexOf, which looks for a quote character, runs at memchr speed.
+  return { table: parseCsv(bytes, file, undefined, wanted), bytes, isXlsx: false };
 }

@@ -27,24 +27,25 @@ export function scoreSummary(score: ArrayLike<number>, cutoff: number, rows?: In
 
 function computeSummary(score: ArrayLike<number>, cutoff: number, rows: Int32Array | undefined, what: string): ScoreSummary {
   if (!Number.isFinite(cutoff)) throw new CutlineError(`the cutoff must be a finite number, got ${cutoff}`);
-  const n = rows ? rows.length : score.length;
+  // The whole column, or its rows gathered once: the passes below then read one array in order.
+  const r = rows ? Float64Array.from(rows, (i) => score[i]) : score;
+  const n = r.length;
   let sum = 0;
   let min = Infinity;
   let max = -Infinity;
   let above = 0;
   for (let t = 0; t < n; t++) {
-    const i = rows ? rows[t] : t;
-    const r = score[i];
-    if (!Number.isFinite(r)) throw new CutlineError(`the ${what} must be a finite number; row ${i + 1} holds ${r}`);
-    sum += r;
-    if (r < min) min = r;
-    if (r > max) max = r;
-    if (r >= cutoff) above++;
+    const v = r[t];
+    if (!Number.isFinite(v)) throw new CutlineError(`the ${what} must be a finite number; row ${(rows ? rows[t] : t) + 1} holds ${v}`);
+    sum += v;
+    if (v < min) min = v;
+    if (v > max) max = v;
+    if (v >= cutoff) above++;
   }
   const mean = n > 0 ? sum / n : NaN;
   let ss = 0;
   for (let t = 0; t < n; t++) {
-    const d = score[rows ? rows[t] : t] - mean;
+    const d = r[t] - mean;
     ss += d * d;
   }
   return { n, mean, sd: n > 1 ? Math.sqrt(ss / (n - 1)) : 0, min, max, below: n - above, above };

@@ -31,33 +31,32 @@ export function argsortWithValues(values: ArrayLike<number>, idx: Int32Array): {
     const order = idx.slice();
     return { order, sorted: gather(order) };
   }
+  // The values in idx's order: the column itself when idx is 0, 1, …, n − 1 (a whole column's sort), else a copy.
+  let whole = n === values.length;
+  for (let t = 0; t < n && whole; t++) whole = idx[t] === t;
+  const v: ArrayLike<number> = whole ? values : gather(idx);
   let lo = Infinity;
   let hi = -Infinity;
-  const v = new Float64Array(n);
   for (let t = 0; t < n; t++) {
-    const x = values[idx[t]];
-    v[t] = x;
+    const x = v[t];
     if (x < lo) lo = x;
     if (x > hi) hi = x;
   }
-  if (!(hi > lo)) return { order: idx.slice(), sorted: v };
+  if (!(hi > lo)) return { order: idx.slice(), sorted: whole ? Float64Array.from(v) : (v as Float64Array) };
   const B = Math.max(1, n >> 2);
   const scale = (B - 1) / (hi - lo);
-  const bucketOf = new Int32Array(n);
   const start = new Int32Array(B + 1);
-  for (let t = 0; t < n; t++) {
-    const b = Math.floor((v[t] - lo) * scale);
-    bucketOf[t] = b;
-    start[b + 1]++;
-  }
+  for (let t = 0; t < n; t++) start[Math.floor((v[t] - lo) * scale) + 1]++;
   for (let b = 0; b < B; b++) start[b + 1] += start[b];
   const fill = start.slice(0, B);
   const out = new Int32Array(n);
   const sv = new Float64Array(n);
+  // Each value's bucket is computed again rather than stored: arithmetic is cheaper than a 4-byte-per-unit array.
   for (let t = 0; t < n; t++) {
-    const at = fill[bucketOf[t]]++;
+    const x = v[t];
+    const at = fill[Math.floor((x - lo) * scale)]++;
     out[at] = idx[t];
-    sv[at] = v[t];
+    sv[at] = x;
   }
   for (let b = 0; b < B; b++) {
     const s = start[b];
