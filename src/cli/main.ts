@@ -4,6 +4,7 @@
  * standard error saying what and where), 1 for anything else.
  */
 import * as fs from 'fs';
+import * as v8 from 'v8';
 import { isMainThread, workerData } from 'worker_threads';
 import { CheckResult, CutlineError } from '../engine';
 import { numberOption, one, parseArgs, ParsedArgs } from './args';
@@ -56,6 +57,11 @@ async function batch(args: ParsedArgs): Promise<number> {
   const formats = formatsOption(one(args, 'format'));
   const jobs = numberOption(args, 'jobs', (v) => (Number.isInteger(v) && v >= 1 ? null : 'must be a whole number of at least 1'));
   const spec = parseCheckSpec(args);
+  // A check runs each of its long loops once: V8 compiles a loop while it runs (on-stack replacement),
+  // by default on a background thread while the loop goes on unoptimised. One check gains from that
+  // (a core is free: 0.98 s against 1.03 s of wall time at 1M rows, README "Speed"); in a batch every
+  // core runs a check, so each compiles its loops on the spot (less CPU in all). Never a result changes.
+  v8.setFlagsFromString('--no-concurrent-osr');
   // Loaded on demand, like the report writers: a plain check does not pay for d3, resvg or workers.
   const { runBatch } = await import('./batch');
   const { rows, failed } = await runBatch({ inputs: args.files, outDir, formats, force: args.flags.has('force'), jobs, spec, script: __filename });

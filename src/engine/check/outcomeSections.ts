@@ -12,7 +12,13 @@ import type { ComplierSummary, ValiditySummary } from './check';
 import { CheckInput, DataColumn, Prepared, Setting } from './setting';
 import { complierWarnings, sensitivityMultiples } from './steps';
 
-const sameRows = (a: Int32Array, b: Int32Array): boolean => a.length === b.length && a.every((v, i) => v === b[i]);
+/** Two sets of listwise rows are the same: both every row (nothing dropped), or equal position by position. */
+function sameRows(a: Prepared, b: Prepared): boolean {
+  if (a.rows.length !== b.rows.length) return false;
+  if (a.dropped === 0 && b.dropped === 0) return true;
+  for (let t = 0; t < a.rows.length; t++) if (a.rows[t] !== b.rows[t]) return false;
+  return true;
+}
 
 /**
  * An outcome's take-up jump, jump and complier effect on its own rows at the
@@ -20,7 +26,7 @@ const sameRows = (a: Int32Array, b: Int32Array): boolean => a.length === b.lengt
  * take-up's rows shares its window (and its smoothed take-up, when given).
  */
 export function outcomeEstimates(s: Setting, p: Prepared, takeup?: CutoffEstimates, level?: number): CutoffEstimates {
-  const shared = sameRows(p.rows, s.takeupRows.rows);
+  const shared = sameRows(p, s.takeupRows);
   return estimatesAtCutoff(p.score, p.treated, p.outcome!, s.cutoff, {
     bandwidth: s.bandwidth.value,
     kernel: s.kernel,

@@ -5,19 +5,14 @@
  * an outcome value each). Cutline's choice: a grid that follows the data, so
  * a decreasing stretch of an implied CDF is seen where the units are.
  */
-import { boundaryWindow, KernelName, gathered } from '../fit';
+import { boundaryWindow, KernelName, windowValues } from '../fit';
 import { orderStatistics } from '../numeric';
 
 export const COMPLIER_GRID_POINTS = 25;
 
 export function complierGrid(score: ArrayLike<number>, outcome: ArrayLike<number>, cutoff: number, bandwidth: number, kernel: KernelName): number[] {
   const win = boundaryWindow(score, cutoff, bandwidth, kernel, { quadratic: false });
-  const ys = new Float64Array(win.above.index.length + win.below.index.length);
-  let u = 0;
-  for (const side of [win.above, win.below]) {
-    ys.set(gathered(side, outcome), u);
-    u += side.index.length;
-  }
+  const ys = windowValues(win, outcome);
   // At most 25 distinct outcomes (binary, counts, scales): show them all, sorted.
   const seen = new Set<number>();
   for (let t = 0; t < ys.length && seen.size <= COMPLIER_GRID_POINTS; t++) seen.add(ys[t]);

@@ -14,3 +14,4 @@ export type { PolyFrame, PolyMoments } from './polyFit';
 export { VARIANCE_NAMES, gathered, neighbourResiduals } from './residuals';
 export type { VarianceName } from './residuals';
 export { ratioPsi, smoothJump } from './smoothJump';
+export { windowValues } from './windowValues';

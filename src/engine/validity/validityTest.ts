@@ -34,7 +34,7 @@
  *   const r = validityTest(score, treated, bill, 60, { bandwidth: 8, kernel: 'triangular' });
  *   r.pvalue; r.worst; // { arm: 1, from: 410, to: 530, t: 2.7 }
  */
-import { boundaryWindow, KernelName, gathered } from '../fit';
+import { boundaryWindow, KernelName, gathered, windowValues } from '../fit';
 import { CutlineError } from '../errors';
 import { VALIDITY_LIMITS as LIMITS } from '../limits';
 import { formatNumber } from '../numeric';
@@ -206,12 +206,8 @@ function momentsFor(
       `${pre}no treated unit ${where} the cutoff inside the window (bandwidth ${formatNumber(o.bandwidth)}): take-up cannot rise there; ` +
         `check the treated column and the eligibility side`,
     );
-  const ys = new Float64Array(win.above.index.length + win.below.index.length);
-  let u = 0;
-  for (const side of [win.above, win.below]) {
-    ys.set(gathered(side, outcome), u);
-    u += side.index.length;
-  }
+  // Below the cutoff first, then above (a view of the sorted column when the sides are adjacent in it).
+  const ys = windowValues(win, outcome);
   const bins = new Int32Array(ys.length);
   const cls = intervalClass(ys, r.grid, bins);
   if (cls.singleValues && cls.distinct < 2)
@@ -219,8 +215,8 @@ function momentsFor(
       `${pre}the outcome takes a single value (${ys[0]}) among the ${ys.length} units in the window (bandwidth ${formatNumber(o.bandwidth)}); ` +
         `the validity test needs an outcome that varies there — widen the bandwidth`,
     );
-  const na = win.above.index.length;
-  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign, { above: bins.subarray(0, na), below: bins.subarray(na) });
+  const nb = win.below.index.length;
+  const all = validityMoments(win, cls, treated, outcome, r.trim, r.sign, { below: bins.subarray(0, nb), above: bins.subarray(nb) });
   const left: WindowMoments['left'] = [];
   if (treatedMinus === 0)
     left.push({
