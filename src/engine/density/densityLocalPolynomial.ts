@@ -41,7 +41,7 @@ import { CutlineError } from '../errors';
 import { orderView, sortedOrder, valuesAt, countDistinctSorted, distinctScoreWarning, requireBothSides, scoreSummary, ScoreSummary } from '../data';
 import { firstAtLeast, invertSmall, normalQuantile, twoSidedPvalue, formatNumber } from '../numeric';
 import { histogramHeights, mccraryDefaultBin } from './densityMcCrary';
-import { coefficientWeights, fitPolynomial, polyDerivative, polyFrame, polyInverse, polyMoments, polyValue } from '../fit';
+import { coefficientWeights, fitPolynomial, polyDerivative, polyFrameSorted, polyInverse, polyMoments, polyValue } from '../fit';
 
 export interface LocalPolynomialDensityOptions {
   bandwidth?: number;
@@ -142,7 +142,7 @@ interface SideWindow {
 function slopeWeights(x: Float64Array, h: number, p: number, side: string): Float64Array {
   const k = new Float64Array(x.length);
   for (let i = 0; i < x.length; i++) k[i] = 1 - Math.abs(x[i] / h);
-  const frame = polyFrame(x, 0, undefined, h);
+  const frame = polyFrameSorted(x, 0, h);
   const inv = polyInverse(polyMoments(x, p, frame, { weights: k }));
   if (!inv) throw new CutlineError(`the density window ${side} the cutoff cannot be fitted (too few distinct scores); widen the density bandwidth`);
   return coefficientWeights(x, k, inv, frame, 1);

@@ -20,7 +20,7 @@ import { CutlineError } from '../errors';
 import { KernelName, kernelWeight } from './kernels';
 import type { NeighbourGroups } from './residuals';
 import { argsortBy, formatNumber } from '../numeric';
-import { coefficientWeights, PolyMoments, polyFrame, polyInverse, polyMoments } from './polyFit';
+import { coefficientWeights, PolyMoments, polyFrameSorted, polyInverse, polyMoments } from './polyFit';
 
 
 export interface SideFit {
@@ -75,7 +75,8 @@ function sideName(above: boolean): string {
 /** The window's moments Σ k uʲ (j ≤ 4, u = x/s, s its largest |x|): one pass serves the line and the curve. */
 function windowMoments(x: Float64Array, k: Float64Array, h: number): PolyMoments {
   // Scaled by the window's largest |x|, not h: a bandwidth far beyond the data would make every u tiny and the normal equations look singular.
-  return polyMoments(x, 2, polyFrame(x, 0, undefined, h), { weights: k });
+  // x ascends (window units sorted by score): the frame from its ends.
+  return polyMoments(x, 2, polyFrameSorted(x, 0, h), { weights: k });
 }
 
 /** Coefficient weights W_j(i) (x units) of the degree-p fit, for the rows asked for (all when `only` is absent). */

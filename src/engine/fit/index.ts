@@ -9,7 +9,7 @@ export { varianceOf } from './influence';
 export { jumpAt } from './jumpAt';
 export { KERNEL_NAMES, kernelMoment } from './kernels';
 export type { KernelName } from './kernels';
-export { coefficientWeights, fitPolynomial, polyCoefficients, polyCross, polyDerivative, polyFrame, polyInverse, polyMoments, polyValue } from './polyFit';
+export { coefficientWeights, fitPolynomial, polyCoefficients, polyCross, polyDerivative, polyFrame, polyFrameSorted, polyInverse, polyMoments, polyValue } from './polyFit';
 export type { PolyFrame, PolyMoments } from './polyFit';
 export { VARIANCE_NAMES, gathered, neighbourResiduals } from './residuals';
 export type { VarianceName } from './residuals';

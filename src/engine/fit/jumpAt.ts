@@ -45,11 +45,12 @@ function check(opts: JumpOptions): void {
 
 export function jumpFrom(win: Window, s: SmoothedJump, opts: JumpOptions): Estimate {
   const g = opts.variance === 'cluster' ? windowClusters(win, opts.clusters) : null;
+  // Unclustered, Σψ² was summed with the terms, in the order varianceOf reads them.
   return makeEstimate(
     s.estimate,
-    Math.sqrt(varianceOf(s.psi, g)),
+    Math.sqrt(g ? varianceOf(s.psi, g) : s.psiSquares),
     s.estimateRobust,
-    Math.sqrt(varianceOf(s.psiRobust, g)),
+    Math.sqrt(g ? varianceOf(s.psiRobust, g) : s.psiRobustSquares),
     opts.level,
   );
 }

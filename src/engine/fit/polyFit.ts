@@ -76,6 +76,18 @@ export function polyFrame(x: ArrayLike<number>, about?: number, weights?: ArrayL
   return { centre, scale: scale > 0 ? scale : fallback };
 }
 
+/**
+ * polyFrame for ascending x with every weight positive: the largest
+ * |x − centre| is at one end, so no pass over the units (the same frame).
+ *
+ * @example polyFrameSorted(Float64Array.of(-2, -1, 0.5), 0, 1) // { centre: 0, scale: 2 }
+ */
+export function polyFrameSorted(x: ArrayLike<number>, about: number, fallback = 1): PolyFrame {
+  const n = x.length;
+  const scale = n > 0 ? Math.max(Math.abs(x[0] - about), Math.abs(x[n - 1] - about)) : 0;
+  return { centre: about, scale: scale > 0 ? scale : fallback };
+}
+
 /** The mean of x over units of positive weight (0 if none). */
 function meanOf(x: ArrayLike<number>, weights?: ArrayLike<number>): number {
   let s = 0;

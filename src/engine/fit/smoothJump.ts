@@ -25,6 +25,9 @@ export interface SmoothedJump {
   psi: Float64Array;
   estimateRobust: number;
   psiRobust: Float64Array;
+  /** Σψ² and Σψ_robust² in ψ's order (the unclustered variances, summed as the terms are made). */
+  psiSquares: number;
+  psiRobustSquares: number;
 }
 
 /** Bias-corrected intercept weights of one side: ω − (Σ ω x²) q₂. */
@@ -50,6 +53,8 @@ export function smoothJump(win: Window, values: ArrayLike<number>, variance: Var
   const psiRobust = new Float64Array(na + nb);
   let estimate = 0;
   let estimateRobust = 0;
+  let psiSquares = 0;
+  let psiRobustSquares = 0;
   const robust = win.above.x2Weights !== undefined && win.below.x2Weights !== undefined;
   for (const side of [win.above, win.below]) {
     const s = (side.above ? 1 : -1) * sign;
@@ -60,7 +65,9 @@ export function smoothJump(win: Window, values: ArrayLike<number>, variance: Var
     let a = 0;
     for (let t = 0; t < w.length; t++) {
       a += w[t] * v[t];
-      psi[off + t] = s * w[t] * e1[t];
+      const p = s * w[t] * e1[t];
+      psi[off + t] = p;
+      psiSquares += p * p;
     }
     estimate += s * a;
     if (robust) {
@@ -69,12 +76,14 @@ export function smoothJump(win: Window, values: ArrayLike<number>, variance: Var
       let ab = 0;
       for (let t = 0; t < wb.length; t++) {
         ab += wb[t] * v[t];
-        psiRobust[off + t] = s * wb[t] * e2[t];
+        const p = s * wb[t] * e2[t];
+        psiRobust[off + t] = p;
+        psiRobustSquares += p * p;
       }
       estimateRobust += s * ab;
     }
   }
-  return { estimate, psi, estimateRobust: robust ? estimateRobust : NaN, psiRobust };
+  return { estimate, psi, estimateRobust: robust ? estimateRobust : NaN, psiRobust, psiSquares, psiRobustSquares };
 }
 
 /** Influence terms of the ratio A/B: (ψ_A − r ψ_B)/B with r = A/B. */

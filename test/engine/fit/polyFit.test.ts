@@ -17,6 +17,7 @@ import {
   polyCross,
   polyDerivative,
   polyFrame,
+  polyFrameSorted,
   polyInverse,
   polyMoments,
   polyValue,
@@ -121,4 +122,20 @@ describe('conditioning and edge cases', () => {
     expect(w0.reduce((s, v, i) => s + v * (2 + 3 * x[i]), 0)).toBeCloseTo(2, 14);
     expect(polyDerivative([1, 0, 1], 3, 1)).toBe(6);
   });
+});
+
+test('polyFrameSorted: the frame of polyFrame from the ends of ascending x', () => {
+  // Ascending samples with negatives, ties, one unit, all equal (fallback) and none.
+  const cases = [
+    Float64Array.of(-3.5, -1, -1, 0.25, 2),
+    Float64Array.of(0.5, 0.75, 9),
+    Float64Array.of(-7),
+    Float64Array.of(0, 0, 0),
+    new Float64Array(0),
+  ];
+  for (const x of cases) {
+    for (const about of [0, 0.5]) {
+      expect(polyFrameSorted(x, about, 3)).toEqual(polyFrame(x, about, undefined, 3));
+    }
+  }
 });
