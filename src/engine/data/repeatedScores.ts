@@ -16,7 +16,7 @@
  * bandwidths span many support points there.
  */
 
-import { orderView, sortedOrder, valuesAt } from './indexedScore';
+import { orderView, rememberedOn, sortedOrder, valuesAt } from './indexedScore';
 import { firstAtLeast } from '../numeric';
 
 export interface DistinctScores {
@@ -44,7 +44,8 @@ export function windowDistinctScores(
   bandwidth: number,
   rows?: Int32Array,
 ): DistinctScores {
-  if (!rows) return distinctFromOrder(score, cutoff, bandwidth);
+  // On a score handle, once per window: McCrary's test and the density section ask for the same one.
+  if (!rows) return rememberedOn(score, `distinct|${cutoff}|${bandwidth}`, () => distinctFromOrder(score, cutoff, bandwidth));
   const total = rows ? rows.length : score.length;
   const inWindow = (x: number) => (x >= 0 ? x < bandwidth : -x < bandwidth);
   let na = 0;

@@ -133,13 +133,16 @@ function coordinates(
   const x = new Float64Array(n);
   const k = new Float64Array(n);
   let distinct = 0;
+  // The kernel's loop is chosen once, not per unit (window units have |x| < h); the triangular one, the
+  // default, is computed in the same pass.
+  const triangular = kernel === 'triangular';
   for (let t = 0; t < n; t++) {
-    x[t] = r[t] - cutoff;
-    if (t === 0 || x[t] !== x[t - 1]) distinct++;
+    const xt = r[t] - cutoff;
+    x[t] = xt;
+    if (t === 0 || xt !== x[t - 1]) distinct++;
+    if (triangular) k[t] = 1 - Math.abs(xt / h);
   }
-  // The kernel's loop is chosen once, not per unit (window units have |x| < h).
-  if (kernel === 'triangular') for (let t = 0; t < n; t++) k[t] = 1 - Math.abs(x[t] / h);
-  else for (let t = 0; t < n; t++) k[t] = kernelWeight(kernel, x[t] / h);
+  if (!triangular) for (let t = 0; t < n; t++) k[t] = kernelWeight(kernel, x[t] / h);
   return { x, k, distinct };
 }
 

@@ -79,14 +79,7 @@ export function intervalClass(outcomes: ArrayLike<number>, grid: number, binsOut
   const binMax = new Float64Array(bins).fill(-Infinity);
   const cls: IntervalClass = { bins, singleValues, upper, binMin, binMax, count: N, distinct: singleValues ? seen.size : 0 };
   if (N > 0) cls.lookup = rankLookup(upper, min, max);
-  // Each bin's smallest and largest value in one pass; of −0 and 0 the −0 is kept (a sort puts it first).
-  for (let t = 0; t < N; t++) {
-    const y = outcomes[t];
-    const b = binOf(cls, y);
-    if (binsOut) binsOut[t] = b;
-    if (y < binMin[b] || (y === binMin[b] && 1 / y < 0)) binMin[b] = y;
-    if (y > binMax[b] || (y === binMax[b] && 1 / y < 0)) binMax[b] = y;
-  }
+  if (cls.lookup) binRanges(outcomes, cls.lookup, binMin, binMax, binsOut ?? new Int32Array(N));
   if (!singleValues) {
     // m itself only matters beyond G to a caller who asks (tests): counted then, by a sort.
     let m: number | undefined;
@@ -96,6 +89,21 @@ export function intervalClass(outcomes: ArrayLike<number>, grid: number, binsOut
     });
   }
   return cls;
+}
+
+/**
+ * Each outcome's bin (into `bins`) and each bin's smallest and largest value,
+ * in one pass of its own (a long loop over arrays only, compiled alone); of −0
+ * and 0 the −0 is kept (a sort puts it first).
+ */
+function binRanges(outcomes: ArrayLike<number>, lookup: RankLookup, binMin: Float64Array, binMax: Float64Array, bins: Int32Array): void {
+  for (let t = 0; t < outcomes.length; t++) {
+    const y = outcomes[t];
+    const b = rankOf(lookup, y);
+    bins[t] = b;
+    if (y < binMin[b] || (y === binMin[b] && 1 / y < 0)) binMin[b] = y;
+    if (y > binMax[b] || (y === binMax[b] && 1 / y < 0)) binMax[b] = y;
+  }
 }
 
 /** The number of distinct values (sorted copy). */
