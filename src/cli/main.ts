@@ -59,7 +59,7 @@ async function batch(args: ParsedArgs): Promise<number> {
   const spec = parseCheckSpec(args);
   // A check runs each of its long loops once: V8 compiles a loop while it runs (on-stack replacement),
   // by default on a background thread while the loop goes on unoptimised. One check gains from that
-  // (a core is free: 0.98 s against 1.03 s of wall time at 1M rows, README "Speed"); in a batch every
+  // (a core is free: 0.92 s against 0.94 s of wall time at 1M rows, README "Speed"); in a batch every
   // core runs a check, so each compiles its loops on the spot (less CPU in all). Never a result changes.
   v8.setFlagsFromString('--no-concurrent-osr');
   // Loaded on demand, like the report writers: a plain check does not pay for d3, resvg or workers.
