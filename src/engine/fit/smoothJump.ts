@@ -56,34 +56,44 @@ export function smoothJump(win: Window, values: ArrayLike<number>, variance: Var
   let psiSquares = 0;
   let psiRobustSquares = 0;
   const robust = win.above.x2Weights !== undefined && win.below.x2Weights !== undefined;
+  const sums = new Float64Array(2);
   for (const side of [win.above, win.below]) {
     const s = (side.above ? 1 : -1) * sign;
     const off = side.above ? 0 : na;
-    const w = side.coef1[0];
     const e1 = sideResiduals(side, values, variance, 1);
     const v = gathered(side, values);
-    let a = 0;
-    for (let t = 0; t < w.length; t++) {
-      a += w[t] * v[t];
-      const p = s * w[t] * e1[t];
-      psi[off + t] = p;
-      psiSquares += p * p;
-    }
-    estimate += s * a;
+    sums[1] = psiSquares;
+    weighted(side.coef1[0], v, e1, s, psi, off, sums);
+    estimate += s * sums[0];
+    psiSquares = sums[1];
     if (robust) {
-      const wb = bcWeights(side);
       const e2 = variance === 'neighbours' ? e1 : sideResiduals(side, values, variance, 2);
-      let ab = 0;
-      for (let t = 0; t < wb.length; t++) {
-        ab += wb[t] * v[t];
-        const p = s * wb[t] * e2[t];
-        psiRobust[off + t] = p;
-        psiRobustSquares += p * p;
-      }
-      estimateRobust += s * ab;
+      sums[1] = psiRobustSquares;
+      weighted(bcWeights(side), v, e2, s, psiRobust, off, sums);
+      estimateRobust += s * sums[0];
+      psiRobustSquares = sums[1];
     }
   }
   return { estimate, psi, estimateRobust: robust ? estimateRobust : NaN, psiRobust, psiSquares, psiRobustSquares };
+}
+
+/**
+ * One side's smoother Σ w·v (into sums[0]) and influence terms ψ = s·w·e
+ * (into psi from `off`), adding Σψ² to the running total in sums[1]. One
+ * function for the four passes of a jump (each side, plain and robust), so
+ * V8 compiles its loop once.
+ */
+function weighted(w: Float64Array, v: Float64Array, e: Float64Array, s: number, psi: Float64Array, off: number, sums: Float64Array): void {
+  let a = 0;
+  let q = sums[1];
+  for (let t = 0; t < w.length; t++) {
+    a += w[t] * v[t];
+    const p = s * w[t] * e[t];
+    psi[off + t] = p;
+    q += p * p;
+  }
+  sums[0] = a;
+  sums[1] = q;
 }
 
 /** Influence terms of the ratio A/B: (ψ_A − r ψ_B)/B with r = A/B. */
