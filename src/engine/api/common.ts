@@ -5,7 +5,8 @@
  * `runCheck` does.
  */
 import { BandwidthRule } from '../bandwidth';
-import { addNew, CheckInput, DataColumn, Eligible } from '../check';
+import { addNew } from '../addNew';
+import { CheckInput, DataColumn, Eligible } from '../check';
 import { checkColumns, Column } from '../data';
 import { CutlineError } from '../errors';
 import { KernelName, VarianceName } from '../fit';

@@ -17,7 +17,7 @@
  *   then below, every jump reported as eligible side − other side, with a warning.
  */
 import { BandwidthRule } from '../bandwidth';
-import { addNew } from './addNew';
+import { addNew } from '../addNew';
 import { CutlineError } from '../errors';
 import { completeRows } from '../data';
 import { Estimate, estimatesAtCutoff, KernelName, VarianceName } from '../fit';

@@ -23,7 +23,7 @@ import { localPolynomialDensityTest, LocalPolynomialDensityResult, mccraryTest, 
 import { CutlineError } from '../errors';
 import { holmAdjust } from '../numeric';
 import { distinctScoreWarning, windowDistinctScores } from '../data';
-import { addNew } from './addNew';
+import { addNew } from '../addNew';
 
 export const DENSITY_CAUTION =
   'A jump in the density of the score is evidence of sorting around the cutoff, not proof of an invalid design (sorting unrelated to outcomes leaves the estimand intact); a smooth density is no proof of validity.';

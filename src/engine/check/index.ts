@@ -1,6 +1,5 @@
 // The public face of src/engine/check: what other folders and the engine's index (src/engine/index.ts) use.
 // Everything not listed here is private to the folder; import it from here, never from its file.
-export { addNew } from './addNew';
 export { runCheck } from './check';
 export type { CheckOptions, CheckResult, ComplierSummary, EstimateSummary, OutcomeResult, ValiditySummary } from './check';
 export { balanceSection, binnedSeries, densitySection } from './designChecks';

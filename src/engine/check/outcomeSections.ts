@@ -7,7 +7,7 @@
 import { complierCdfArms, complierDensity, complierMeans, complierGrid } from '../compliers';
 import { CutoffEstimates, estimatesAtCutoff, KernelName } from '../fit';
 import { MultiplierName, validityReport } from '../validity';
-import { addNew } from './addNew';
+import { addNew } from '../addNew';
 import type { ComplierSummary, ValiditySummary } from './check';
 import { CheckInput, DataColumn, Prepared, Setting } from './setting';
 import { complierWarnings, sensitivityMultiples } from './steps';

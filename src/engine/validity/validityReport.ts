@@ -31,6 +31,7 @@
  *   const v = validityReport(score, treated, bill, 60, { bandwidth: 8, kernel: 'triangular', multiples: [0.5, 2] });
  *   if (v.applicable) v.pvalue; // max of v.observed.pvalue and v.trend_adjusted?.pvalue
  */
+import { addNew } from '../addNew';
 import { CutlineError } from '../errors';
 import { formatNumber } from '../numeric';
 import { SideTrend, trendRemoved } from './trendRemoved';
@@ -192,14 +193,14 @@ export function validityReport(
 
   const h = headline(main);
   const warnings = [...observed.warnings];
-  for (const w of main.adjusted?.warnings ?? []) if (!warnings.includes(w)) warnings.push(w);
+  addNew(warnings, main.adjusted?.warnings ?? []);
   if (trend)
     for (const [side, f] of [['below', trend.below], ['above', trend.above]] as const)
       if (f.degree < 2 && main.guard === 'applied')
         warnings.push(
           `the trend guard fitted a ${f.degree === 1 ? 'line' : 'constant'} ${side} the cutoff, not a quadratic: the side has only ${f.degree + 1} distinct score value${f.degree ? 's' : ''}`,
         );
-  for (const w of verdictWarnings(byBandwidth)) if (!warnings.includes(w)) warnings.push(w);
+  addNew(warnings, verdictWarnings(byBandwidth));
   return {
     applicable: true,
     pvalue: h.pvalue,

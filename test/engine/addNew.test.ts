@@ -1,6 +1,6 @@
-// src/engine/check/addNew.ts: warnings gathered once each, in the order first said
+// src/engine/addNew.ts: warnings gathered once each, in the order first said
 // (the order the committed CLI snapshot, test/cli/snapshot.test.ts, pins).
-import { addNew } from '../../../src/engine/check/addNew';
+import { addNew } from '../../src/engine/addNew';
 
 test('appends the entries not yet present, in order, once each, into the same list', () => {
   const list = ['a', 'b'];
