@@ -9,7 +9,7 @@ import { BandwidthChoice, BandwidthRule, chooseBandwidth, bandwidthMse, widenFor
 import { CutlineError } from '../errors';
 import { boundaryWindow, gathered, Window, KernelName } from '../fit';
 import { sortedOrder } from '../data';
-import { formatNumber } from '../numeric';
+import { dot, formatNumber } from '../numeric';
 import { MultiplierName, validityReport, ValidityAtBandwidth } from '../validity';
 
 export type Eligible = 'above' | 'below';
@@ -43,13 +43,7 @@ export function eligibleSide(
     return { sign: given === 'above' ? 1 : -1, eligible: given, window, warnings: [] };
   }
   // Read from the sides' gathered treated column (kept for the estimates, which read it next).
-  const intercept = (side: Window['above']): number => {
-    const w = side.coef1[0];
-    const d = gathered(side, treated);
-    let a = 0;
-    for (let t = 0; t < w.length; t++) a += w[t] * d[t];
-    return a;
-  };
+  const intercept = (side: Window['above']): number => dot(side.coef1[0], gathered(side, treated));
   const raw = intercept(window.above) - intercept(window.below);
   const sign: 1 | -1 = raw < 0 ? -1 : 1;
   return { sign, eligible: sign > 0 ? 'above' : 'below', window, warnings: sign < 0 ? [FALLING_TAKEUP_WARNING] : [] };

@@ -25,7 +25,7 @@
  */
 import { SideFit, Window, boundaryWindow, KernelName, gathered } from '../fit';
 import { CutlineError } from '../errors';
-import { formatNumber, rankLookup, rankOf } from '../numeric';
+import { dot, formatNumber, rankLookup, rankOf } from '../numeric';
 
 export interface ComplierOptions {
   bandwidth: number;
@@ -74,13 +74,7 @@ function checkWindow(win: Window, treated: ArrayLike<number>, outcome: ArrayLike
   const minus = sign === 1 ? win.below : win.above;
   // The columns were checked where they entered the engine (checkColumns at every entry point and in a check's settle).
   // Σ ω·D per side from the gathered column (the same sums, read in window order).
-  const takeupSide = (side: SideFit): number => {
-    const w = side.coef1[0];
-    const d = gathered(side, treated);
-    let s = 0;
-    for (let t = 0; t < w.length; t++) s += w[t] * d[t];
-    return s;
-  };
+  const takeupSide = (side: SideFit): number => dot(side.coef1[0], gathered(side, treated));
   const pi = takeupSide(plus) - takeupSide(minus);
   if (!(pi > 0))
     throw new CutlineError(

@@ -3,6 +3,7 @@
 export { argsortBy, argsortWithValues } from './argsort';
 export { firstAtLeast, searchSorted } from './binarySearch';
 export { sampleCovariance, sampleVariance } from './describe';
+export { dot, sum } from './dot';
 export { formatNumber } from './formatNumber';
 export { holmAdjust } from './holm';
 export { invertSmall } from './linalg';

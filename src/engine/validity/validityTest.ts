@@ -37,7 +37,7 @@
 import { boundaryWindow, KernelName, gathered, windowValues } from '../fit';
 import { CutlineError } from '../errors';
 import { VALIDITY_LIMITS as LIMITS } from '../limits';
-import { formatNumber } from '../numeric';
+import { formatNumber, sum } from '../numeric';
 import { intervalClass } from './intervalClass';
 import { MultiplierName, bootstrapMaxima, selection } from './validityBootstrap';
 import { MomentSet, selectMoments, takeupOf, validityMoments } from './validityMoments';
@@ -194,12 +194,8 @@ function momentsFor(
   const where = r.sign === 1 ? 'above' : 'below';
   const other = r.sign === 1 ? 'below' : 'above';
   // Treated counts from the sides' gathered columns (read in window order, kept by the side for the moments).
-  let treatedPlus = 0;
-  const dPlus = gathered(plusSide, treated);
-  for (let t = 0; t < dPlus.length; t++) treatedPlus += dPlus[t];
-  let treatedMinus = 0;
-  const dMinus = gathered(minusSide, treated);
-  for (let t = 0; t < dMinus.length; t++) treatedMinus += dMinus[t];
+  const treatedPlus = sum(gathered(plusSide, treated));
+  const treatedMinus = sum(gathered(minusSide, treated));
   const pre = label ? `${label}: ` : '';
   if (treatedPlus === 0)
     throw new CutlineError(
