@@ -144,7 +144,8 @@ export function scanPlain(text: Uint8Array, delim: string, source: string, numer
   // Room for the rows the first 64 KiB foretell (grown by doubling if they lie).
   const sample = Math.min(end, i + 65536);
   let lines = 1;
-  for (let t = i; t < sample; t++) if (text[t] === 10 || text[t] === 13) lines++;
+  // A line ends at LF, or at a CR not followed by LF (CR LF counts once).
+  for (let t = i; t < sample; t++) if (text[t] === 10 || (text[t] === 13 && text[t + 1] !== 10)) lines++;
   let cap = Math.max(1024, Math.ceil((lines * 1.05 * Math.max(0, end - i)) / Math.max(1, sample - i)));
   let starts = new Int32Array(cap);
   let blank = new Uint8Array(cap);
