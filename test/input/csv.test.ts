@@ -173,3 +173,21 @@ describe('numbers read during the scan (plainCsv.ts)', () => {
     expect(Array.from(a.missing)).toEqual([0, 1, 0]);
   });
 });
+
+test('the scan grows its room when the first lines foretell too few rows', () => {
+  // 64 KiB of long lines first (a wide text column), then 30,000 short ones: the estimate from the first 64 KiB
+  // is far too small, so the buffers double several times; every number must still equal the cell rules.
+  const long = Array.from({ length: 200 }, (_, i) => `${i * 0.5},${'x'.repeat(400)},${i}`);
+  const short = Array.from({ length: 30000 }, (_, i) => `${(i % 97) / 8},,${-i}`);
+  const text = ['a,b,c', ...long, ...short].join('\n') + '\n';
+  const fast = parseCsv(text, 'the CSV file', 'plain', () => [0, 2]);
+  const slow = parseCsv(text, 'the CSV file', 'quoted');
+  expect(fast.rowCount).toBe(30200);
+  for (const name of ['a', 'c']) {
+    const f = numericColumn(fast, name, 'outcome');
+    const s = numericColumn(slow, name, 'outcome');
+    expect(Array.from(f.values)).toEqual(Array.from(s.values));
+    expect(Array.from(f.missing)).toEqual(Array.from(s.missing));
+  }
+  expect(numericColumn(fast, 'c', 'outcome').values[30199]).toBe(-29999);
+});
