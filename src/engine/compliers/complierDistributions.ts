@@ -192,6 +192,7 @@ export function complierCdfArms(
   });
 }
 
+/** Silverman's rule of thumb on the window outcomes (see the doc comment). */
 export function silvermanBandwidth(values: number[]): number {
   const n = values.length;
   const s = [...values].sort((a, b) => a - b);
