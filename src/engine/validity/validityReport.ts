@@ -35,7 +35,7 @@ import { addNew } from '../addNew';
 import { CutlineError } from '../errors';
 import { formatNumber } from '../numeric';
 import { SideTrend, trendRemoved } from './trendRemoved';
-import { checkColumns, resolveValidityOptions, ValidityNotApplicable, ValidityOptions, ValidityOutcome, ValidityResult, validityTestChecked } from './validityTest';
+import { checkTestInput, resolveValidityOptions, ValidityNotApplicable, ValidityOptions, ValidityOutcome, ValidityResult, validityTestChecked } from './validityTest';
 
 export interface ValidityReportOptions extends ValidityOptions {
   /** Multiples of `bandwidth` for the sensitivity table besides 1 (default none). */
@@ -143,8 +143,7 @@ export function validityReport(
 
   // The columns are checked once, before the fit reads them; every run below uses them as checked
   // (the trend guard's Ỹ is computed from them: finite, on the same rows).
-  if (!Number.isFinite(cutoff)) throw new CutlineError(`cutoff must be a finite number, got ${cutoff}`);
-  const n = checkColumns(score, treated, outcome, options.rows);
+  const n = checkTestInput(score, treated, outcome, cutoff, options.rows);
   const test = (y: ArrayLike<number>, bandwidth: number): ValidityOutcome => {
     const o = { ...testOptions, bandwidth };
     return validityTestChecked(score, treated, y, cutoff, o, resolveValidityOptions(o), n);

@@ -293,8 +293,19 @@ export function validityTest(
   options: ValidityOptions,
 ): ValidityOutcome {
   const r = resolveValidityOptions(options);
+  return validityTestChecked(score, treated, outcome, cutoff, options, r, checkTestInput(score, treated, outcome, cutoff, options.rows));
+}
+
+/** The cutoff and the columns on the rows used, checked once for any number of runs; returns the rows used. */
+export function checkTestInput(
+  score: ArrayLike<number>,
+  treated: ArrayLike<number>,
+  outcome: ArrayLike<number>,
+  cutoff: number,
+  rows?: Int32Array,
+): number {
   if (!Number.isFinite(cutoff)) throw new CutlineError(`cutoff must be a finite number, got ${cutoff}`);
-  return validityTestChecked(score, treated, outcome, cutoff, options, r, checkColumns(score, treated, outcome, options.rows));
+  return checkColumns(score, treated, outcome, rows);
 }
 
 /**
