@@ -7,9 +7,9 @@
  */
 import { BandwidthChoice, BandwidthRule, chooseBandwidth, bandwidthMse, widenForTies } from '../bandwidth';
 import { CutlineError } from '../errors';
-import { boundaryWindow, gathered, Window, KernelName } from '../fit';
+import { boundaryWindow, sideIntercept, Window, KernelName } from '../fit';
 import { sortedOrder } from '../data';
-import { dot, formatNumber } from '../numeric';
+import { formatNumber } from '../numeric';
 import { MultiplierName, validityReport, ValidityAtBandwidth } from '../validity';
 
 export type Eligible = 'above' | 'below';
@@ -43,8 +43,7 @@ export function eligibleSide(
     return { sign: given === 'above' ? 1 : -1, eligible: given, window, warnings: [] };
   }
   // Read from the sides' gathered treated column (kept for the estimates, which read it next).
-  const intercept = (side: Window['above']): number => dot(side.coef1[0], gathered(side, treated));
-  const raw = intercept(window.above) - intercept(window.below);
+  const raw = sideIntercept(window.above, treated) - sideIntercept(window.below, treated);
   const sign: 1 | -1 = raw < 0 ? -1 : 1;
   return { sign, eligible: sign > 0 ? 'above' : 'below', window, warnings: sign < 0 ? [FALLING_TAKEUP_WARNING] : [] };
 }

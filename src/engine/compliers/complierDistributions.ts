@@ -23,9 +23,9 @@
  * @example
  *   complierCdf(score, treated, bill, 60, [400, 500, 600], 1, { bandwidth: 8, kernel: 'triangular' }).cdf
  */
-import { SideFit, Window, boundaryWindow, KernelName, gathered } from '../fit';
+import { SideFit, Window, boundaryWindow, KernelName, gathered, sideIntercept } from '../fit';
 import { CutlineError } from '../errors';
-import { dot, formatNumber, rankLookup, rankOf } from '../numeric';
+import { formatNumber, rankLookup, rankOf } from '../numeric';
 
 export interface ComplierOptions {
   bandwidth: number;
@@ -74,8 +74,7 @@ function checkWindow(win: Window, treated: ArrayLike<number>, outcome: ArrayLike
   const minus = sign === 1 ? win.below : win.above;
   // The columns were checked where they entered the engine (checkColumns at every entry point and in a check's settle).
   // Σ ω·D per side from the gathered column (the same sums, read in window order).
-  const takeupSide = (side: SideFit): number => dot(side.coef1[0], gathered(side, treated));
-  const pi = takeupSide(plus) - takeupSide(minus);
+  const pi = sideIntercept(plus, treated) - sideIntercept(minus, treated);
   if (!(pi > 0))
     throw new CutlineError(
       `the take-up jump is ${formatNumber(pi)} at bandwidth ${opts.bandwidth}: take-up does not rise at the cutoff, ` +

@@ -11,7 +11,7 @@ export { KERNEL_NAMES, kernelMoment } from './kernels';
 export type { KernelName } from './kernels';
 export { coefficientWeights, fitPolynomial, polyCoefficients, polyCross, polyDerivative, polyFrame, polyFrameSorted, polyInverse, polyMoments, polyValue } from './polyFit';
 export type { PolyFrame, PolyMoments } from './polyFit';
-export { VARIANCE_NAMES, gathered, neighbourResiduals } from './residuals';
+export { VARIANCE_NAMES, gathered, neighbourResiduals, sideIntercept } from './residuals';
 export type { VarianceName } from './residuals';
 export { ratioPsi, smoothJump } from './smoothJump';
 export { windowValues } from './windowValues';

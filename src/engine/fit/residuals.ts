@@ -15,6 +15,7 @@
  *   tied units); Cutline's reading, recalled from memory as the supplement's.
  */
 import { valuesAt } from '../data';
+import { dot } from '../numeric';
 import { applyWeights, SideFit, SortedSide } from './boundaryWindow';
 
 export type VarianceName = 'hc0' | 'hc1' | 'neighbours' | 'cluster';
@@ -51,6 +52,11 @@ export function gathered(side: SortedSide, values: ArrayLike<number>): Float64Ar
     memo?.set(values as object, v);
   }
   return v;
+}
+
+/** The side's local linear intercept of V, Σ ω·V, read from the side's gathered column in window order. */
+export function sideIntercept(side: SideFit, values: ArrayLike<number>): number {
+  return dot(side.coef1[0], gathered(side, values));
 }
 
 /** Nearest-neighbour residuals (J = 3) of V on one side; the side remembers them (pilots and estimates ask twice). */
